@@ -1,0 +1,1 @@
+import { LANG_VERSION } from "@cribra/lang"; console.log(LANG_VERSION);
