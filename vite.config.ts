@@ -6,6 +6,7 @@ const here = (p: string) => fileURLToPath(new URL(p, import.meta.url));
 
 // Libraries are consumed from source by the web app and by vitest; Node apps use their built dist.
 const alias = {
+  '@cribra/engine/node': here('./libs/engine/src/node/index.ts'),
   '@cribra/engine': here('./libs/engine/src/index.ts'),
   '@cribra/lang': here('./libs/lang/src/index.ts'),
   '@cribra/contracts': here('./libs/contracts/src/index.ts'),
@@ -33,6 +34,7 @@ export default defineConfig({
         resolve: { alias },
         test: {
           name: 'libs',
+          globalSetup: ['libs/engine/test/global-setup.ts'],
           root: here('.'),
           environment: 'node',
           include: ['libs/*/src/**/*.test.ts', 'libs/*/test/**/*.test.ts', 'apps/cli/src/**/*.test.ts', 'apps/cli/test/**/*.test.ts'],

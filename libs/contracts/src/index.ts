@@ -1,1 +1,3 @@
-export {};
+// Types shared by the API, the runner and the web app. Types and constants only, no behaviour.
+export * from './error';
+export * from './auth';
