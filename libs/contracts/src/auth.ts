@@ -25,6 +25,14 @@ export interface UserView {
  */
 export const CSRF_HEADER = 'x-csrf-token';
 
+/** Shortest password the API accepts (sign-up, change, reset). */
+export const MIN_PASSWORD_LENGTH = 8;
+/**
+ * Web page the reset e-mail links to: `${PUBLIC_URL}${RESET_PASSWORD_PATH}?token=<token>`;
+ * the page posts the token with the new password to /api/auth/reset/confirm.
+ */
+export const RESET_PASSWORD_PATH = '/reset-password';
+
 export interface SignUpBody {
   email: string;
   password: string;
