@@ -2,3 +2,4 @@
 export * from './error';
 export * from './auth';
 export * from './notebooks';
+export * from './queue';

@@ -1,0 +1,44 @@
+// Queue names and job payloads shared by the API (which enqueues) and the runners (which consume).
+// All queues live in pg-boss (schema `pgboss`) in the main PostgreSQL database.
+
+export const QUEUES = {
+  /** Execute one run of one cell. */
+  runCell: 'cribra-run-cell',
+  /** Split a computation (level or ledger range) into chunk jobs. */
+  plan: 'cribra-computation-plan',
+  /** Compute one chunk of a wheel level. */
+  levelChunk: 'cribra-level-chunk',
+  /** Compute one prime-ledger block. */
+  ledgerBlock: 'cribra-ledger-block',
+  /** Combine the chunks of a finished computation and store the result. */
+  combine: 'cribra-computation-combine',
+} as const;
+export type QueueName = (typeof QUEUES)[keyof typeof QUEUES];
+
+export interface RunCellJob {
+  runId: string;
+}
+export interface PlanJob {
+  computationId: string;
+}
+export interface LevelChunkJob {
+  computationId: string;
+  prime: number;
+  index: number;
+  chunks: number;
+}
+export interface LedgerBlockJob {
+  computationId: string | null;
+  blockIndex: number;
+}
+export interface CombineJob {
+  computationId: string;
+}
+
+/**
+ * Retry policy of every queue: a job whose runner died (no completion before `expireInSeconds`)
+ * is failed by pg-boss maintenance and retried by any runner. Tests shorten the expiry through
+ * CRIBRA_JOB_EXPIRE_SECONDS.
+ */
+export const QUEUE_RETRY_LIMIT = 5;
+export const QUEUE_DEFAULT_EXPIRE_SECONDS = 15 * 60;
