@@ -1,1 +1,7 @@
-export {};
+// Real primes: segmented sieve over any range up to 10^15, combinable block summaries.
+export * from './prime-block';
+export * from './prime-block-json';
+export * from './combine';
+export * from './range';
+export * from './queries';
+export { compilePattern, MAX_PATTERN_DIAMETER, type CompiledPattern } from './pattern';

@@ -1,0 +1,337 @@
+import { isSmallPrime } from '../primes/small-primes';
+import type { CompiledPattern } from './pattern';
+import { PRESIEVE_PERIOD, presievePattern } from './presieve';
+import { RESIDUES, popcount32 } from './wheel30';
+
+/** Bytes per sieve segment (each byte spans 30 integers); sized for the L2 cache. */
+export const SEGMENT_BYTES = 1 << 17;
+
+/** Statistics of one constellation pattern over a block (numbers; −1 for "none"). */
+export interface CorePatternResult {
+  count: number;
+  first: number;
+  last: number;
+}
+
+/** Consecutive-prime gap statistics over a block. */
+export interface CoreGapResult {
+  /** histogram[g] = number of consecutive primes p < p' in the block with p' − p = g. */
+  histogram: Float64Array;
+  /** Record gaps in order: each larger than every earlier gap of the block; `after` is the lower prime. */
+  records: Array<{ gap: number; after: number }>;
+}
+
+/** Raw result of {@link sieveCore}; numbers are exact (the range lies below 2^53). */
+export interface CoreResult {
+  primeCount: number;
+  firstPrime: number;
+  lastPrime: number;
+  patterns: CorePatternResult[];
+  gaps: CoreGapResult | null;
+}
+
+// Offset (from the segment base) of the integer of bit `pos` of a 32-bit word at word index 0.
+const WORD_BIT_VALUE: Int32Array = (() => {
+  const t = new Int32Array(32);
+  for (let pos = 0; pos < 32; pos++) t[pos] = 30 * (pos >> 3) + RESIDUES[pos & 7]!;
+  return t;
+})();
+
+/**
+ * Segmented sieve of Eratosthenes on the mod-30 wheel over [a, b] (safe integers, 0 ≤ a ≤ b,
+ * b < 2^53): one byte per 30 integers, segments of SEGMENT_BYTES, the multiples of 7…19 removed by
+ * copying a pre-sieved pattern, then every sieving prime 23 ≤ p ≤ √b crossed off per wheel residue
+ * class (eight progressions of step p bytes, unrolled). `sieving` must hold every prime ≤ √b in
+ * increasing order (more are ignored). Counts primes, the given patterns (n ≥ a, n + max H ≤ b) and,
+ * when asked, the gap histogram and the record gaps.
+ */
+export function sieveCore(
+  a: number,
+  b: number,
+  patterns: readonly CompiledPattern[],
+  wantGaps: boolean,
+  sieving: Uint32Array,
+): CoreResult {
+  const pat: CorePatternResult[] = patterns.map(() => ({ count: 0, first: -1, last: -1 }));
+  let histogram = new Float64Array(wantGaps ? 2048 : 0);
+  const records: Array<{ gap: number; after: number }> = [];
+  let lastSeen = -1; // last prime met so far (for gaps)
+  let maxGap = 0;
+  let primeCount = 0;
+  let firstPrime = -1;
+  let lastPrime = -1;
+
+  const addGapPrime = (p: number): void => {
+    if (lastSeen >= 0) {
+      const g = p - lastSeen;
+      if (g >= histogram.length) {
+        const grown = new Float64Array(Math.max(2 * histogram.length, g + 1));
+        grown.set(histogram);
+        histogram = grown;
+      }
+      histogram[g]!++;
+      if (g > maxGap) {
+        maxGap = g;
+        records.push({ gap: g, after: lastSeen });
+      }
+    }
+    lastSeen = p;
+  };
+
+  // 2, 3 and 5 are not on the wheel: count them, and the occurrences that start at them, directly.
+  for (const p of [2, 3, 5]) {
+    if (p < a || p > b) continue;
+    primeCount++;
+    if (firstPrime < 0) firstPrime = p;
+    lastPrime = p;
+    if (wantGaps) addGapPrime(p);
+  }
+  patterns.forEach((cp, i) => {
+    for (const n of [2, 3, 5]) {
+      if (n < a || n + cp.diameter > b) continue;
+      if (cp.offsets.every((h) => isSmallPrime(n + h))) {
+        const r = pat[i]!;
+        r.count++;
+        if (r.first < 0) r.first = n;
+        r.last = n;
+      }
+    }
+  });
+  if (b < 7) return finish();
+
+  let maxByteOffset = 0;
+  for (const cp of patterns) maxByteOffset = Math.max(maxByteOffset, cp.maxByteOffset);
+  // Bytes sieved beyond each segment so that occurrences starting in it can be read whole.
+  const extra = patterns.length > 0 ? (maxByteOffset + 11) & ~3 : 0;
+  const base0 = a - (a % 30);
+  const totalBytes = Math.floor((b - base0) / 30) + 1;
+  const buffer = new ArrayBuffer(SEGMENT_BYTES + extra + 8);
+  const buf = new Uint8Array(buffer);
+  const u32 = new Uint32Array(buffer);
+  const pattern = presievePattern(SEGMENT_BYTES + extra + 8);
+
+  // Sieving primes from 23 up: next byte of each of the 8 residue-class progressions, and its mask.
+  let firstSieving = 0;
+  while (firstSieving < sieving.length && sieving[firstSieving]! < 23) firstSieving++;
+  let lastSieving = firstSieving;
+  while (lastSieving < sieving.length && sieving[lastSieving]! * sieving[lastSieving]! <= b) lastSieving++;
+  const nSieving = lastSieving - firstSieving;
+  const next = new Int32Array(8 * nSieving);
+  const masks = new Uint8Array(8 * nSieving);
+  let active = 0;
+
+  let done = 0;
+  while (done < totalBytes) {
+    const len = Math.min(SEGMENT_BYTES, (totalBytes - done + 3) & ~3);
+    const L = len + extra;
+    const base = base0 + 30 * done;
+    const off = (base / 30) % PRESIEVE_PERIOD;
+    buf.set(pattern.subarray(off, off + L), 0);
+    buf.fill(0, L, L + 8);
+    if (base === 0) buf[0] = (buf[0]! & 0xfe) | 0x3e; // 1 is not prime; 7, 11, 13, 17, 19 are.
+
+    // Activate the primes whose square falls before the end of this segment.
+    const end = base + 30 * L;
+    while (active < nSieving) {
+      const p = sieving[firstSieving + active]!;
+      if (p * p >= end) break;
+      const start = Math.max(p * p, base);
+      const rem = start % p;
+      const m0 = (start - rem) / p + (rem === 0 ? 0 : 1);
+      const o = active << 3;
+      for (let c = 0; c < 8; c++) {
+        const r = RESIDUES[c]!;
+        const m = m0 + ((((r - (m0 % 30)) % 30) + 30) % 30);
+        const n = p * m;
+        next[o + c] = (n - base - (n % 30)) / 30;
+        masks[o + c] = ~(1 << RESIDUES.indexOf(n % 30)) & 0xff;
+      }
+      active++;
+    }
+    crossOff(buf, next, masks, sieving, firstSieving, active, len, L);
+    clearOutside(buf, base, L, a, b);
+
+    // Primes of this segment: start bytes [0, len).
+    const words = len >> 2;
+    let segCount = 0;
+    for (let w = 0; w < words; w++) segCount += popcount32(u32[w]!);
+    if (segCount > 0) {
+      primeCount += segCount;
+      if (firstPrime < 0) firstPrime = base + firstBitValue(u32, 0, words);
+      lastPrime = base + lastBitValue(u32, words);
+      if (wantGaps) {
+        for (let w = 0; w < words; w++) {
+          let x = u32[w]!;
+          const wb = base + 120 * w;
+          while (x !== 0) {
+            const low = x & -x;
+            const p = wb + WORD_BIT_VALUE[31 - Math.clz32(low)]!;
+            x ^= low;
+            if (lastSeen >= 0) {
+              const g = p - lastSeen;
+              if (g < histogram.length && g <= maxGap) {
+                histogram[g]!++;
+                lastSeen = p;
+                continue;
+              }
+            }
+            addGapPrime(p);
+          }
+        }
+      }
+    }
+    for (let i = 0; i < patterns.length; i++) countPattern(u32, words, base, patterns[i]!, pat[i]!);
+    done += len;
+  }
+  return finish();
+
+  function finish(): CoreResult {
+    return {
+      primeCount,
+      firstPrime,
+      lastPrime,
+      patterns: pat,
+      gaps: wantGaps ? { histogram, records } : null,
+    };
+  }
+}
+
+/** Crosses off the multiples of the active sieving primes in bytes [0, L); positions restart at len. */
+function crossOff(
+  buf: Uint8Array,
+  next: Int32Array,
+  masks: Uint8Array,
+  sieving: Uint32Array,
+  first: number,
+  active: number,
+  len: number,
+  L: number,
+): void {
+  for (let i = 0; i < active; i++) {
+    const p = sieving[first + i]!;
+    const o = i << 3;
+    let j0 = next[o]!, j1 = next[o + 1]!, j2 = next[o + 2]!, j3 = next[o + 3]!;
+    let j4 = next[o + 4]!, j5 = next[o + 5]!, j6 = next[o + 6]!, j7 = next[o + 7]!;
+    const m0 = masks[o]!, m1 = masks[o + 1]!, m2 = masks[o + 2]!, m3 = masks[o + 3]!;
+    const m4 = masks[o + 4]!, m5 = masks[o + 5]!, m6 = masks[o + 6]!, m7 = masks[o + 7]!;
+    // The eight progressions stay within p bytes of each other: step them together.
+    let jmax = Math.max(j0, j1, j2, j3, j4, j5, j6, j7);
+    while (jmax < len) {
+      buf[j0] &= m0; buf[j1] &= m1; buf[j2] &= m2; buf[j3] &= m3;
+      buf[j4] &= m4; buf[j5] &= m5; buf[j6] &= m6; buf[j7] &= m7;
+      j0 += p; j1 += p; j2 += p; j3 += p; j4 += p; j5 += p; j6 += p; j7 += p;
+      jmax += p;
+    }
+    while (j0 < len) { buf[j0] &= m0; j0 += p; }
+    while (j1 < len) { buf[j1] &= m1; j1 += p; }
+    while (j2 < len) { buf[j2] &= m2; j2 += p; }
+    while (j3 < len) { buf[j3] &= m3; j3 += p; }
+    while (j4 < len) { buf[j4] &= m4; j4 += p; }
+    while (j5 < len) { buf[j5] &= m5; j5 += p; }
+    while (j6 < len) { buf[j6] &= m6; j6 += p; }
+    while (j7 < len) { buf[j7] &= m7; j7 += p; }
+    next[o] = j0 - len; next[o + 1] = j1 - len; next[o + 2] = j2 - len; next[o + 3] = j3 - len;
+    next[o + 4] = j4 - len; next[o + 5] = j5 - len; next[o + 6] = j6 - len; next[o + 7] = j7 - len;
+    if (L > len) {
+      // The look-ahead bytes past the segment (re-sieved as part of the next segment).
+      for (let c = 0; c < 8; c++) {
+        const m = masks[o + c]!;
+        for (let j = next[o + c]! + len; j < L; j += p) buf[j] &= m;
+      }
+    }
+  }
+}
+
+/** Clears the bits of the integers outside [a, b] among the bytes [0, L) that start at base. */
+function clearOutside(buf: Uint8Array, base: number, L: number, a: number, b: number): void {
+  if (a > base) {
+    const k = Math.floor((a - base) / 30);
+    buf.fill(0, 0, Math.min(k, L));
+    if (k < L) for (let i = 0; i < 8; i++) if (base + 30 * k + RESIDUES[i]! < a) buf[k]! &= ~(1 << i);
+  }
+  if (b < base + 30 * L - 1) {
+    const k = Math.floor((b - base) / 30);
+    for (let i = 0; i < 8; i++) if (base + 30 * k + RESIDUES[i]! > b) buf[k]! &= ~(1 << i);
+    buf.fill(0, k + 1, L);
+  }
+}
+
+/** Offset from the base of the lowest set bit in words [from, words) (there must be one). */
+function firstBitValue(u32: Uint32Array, from: number, words: number): number {
+  for (let w = from; w < words; w++) {
+    const x = u32[w]!;
+    if (x !== 0) return 120 * w + WORD_BIT_VALUE[31 - Math.clz32(x & -x)]!;
+  }
+  return -1;
+}
+
+/** Offset from the base of the highest set bit in words [0, words) (there must be one). */
+function lastBitValue(u32: Uint32Array, words: number): number {
+  for (let w = words - 1; w >= 0; w--) {
+    const x = u32[w]!;
+    if (x !== 0) return 120 * w + WORD_BIT_VALUE[31 - Math.clz32(x)]!;
+  }
+  return -1;
+}
+
+/**
+ * Counts the occurrences of one pattern whose start n lies in the bytes [0, 4·words) of the segment,
+ * and updates its first/last occurrence. Occurrence bits are built per 32-bit word: bit c of each
+ * byte says that n = 30k + RESIDUES[c] starts an occurrence.
+ */
+function countPattern(u32: Uint32Array, words: number, base: number, cp: CompiledPattern, out: CorePatternResult): void {
+  let count = 0;
+  let firstWord = -1;
+  let firstBits = 0;
+  let lastWord = -1;
+  let lastBits = 0;
+  if (cp.twin) {
+    // Starts 11 and 17 (bits 2, 4) pair with the next bit of the byte; 29 (bit 7) with bit 0 of the
+    // next byte, which is the next bit of the word except at bit 31.
+    for (let w = 0; w < words; w++) {
+      const P = u32[w]!;
+      const occ = P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494;
+      if (occ !== 0) {
+        count += popcount32(occ);
+        if (firstWord < 0) {
+          firstWord = w;
+          firstBits = occ;
+        }
+        lastWord = w;
+        lastBits = occ;
+      }
+    }
+  } else {
+    const nClasses = cp.classes.length;
+    for (let w = 0; w < words; w++) {
+      let occ = 0;
+      for (let ci = 0; ci < nClasses; ci++) {
+        const bytes = cp.termBytes[ci]!;
+        const bits = cp.termBits[ci]!;
+        let acc = -1;
+        for (let t = 0; t < bytes.length; t++) {
+          const d = bytes[t]!;
+          const q = w + (d >> 2);
+          const s = (d & 3) << 3;
+          const v = s === 0 ? u32[q]! : (u32[q]! >>> s) | (u32[q + 1]! << (32 - s));
+          acc &= v >>> bits[t]!;
+          if ((acc & 0x01010101) === 0) break;
+        }
+        occ |= (acc & 0x01010101) << cp.classes[ci]!;
+      }
+      if (occ !== 0) {
+        count += popcount32(occ);
+        if (firstWord < 0) {
+          firstWord = w;
+          firstBits = occ;
+        }
+        lastWord = w;
+        lastBits = occ;
+      }
+    }
+  }
+  if (count === 0) return;
+  out.count += count;
+  if (out.first < 0) out.first = base + 120 * firstWord + WORD_BIT_VALUE[31 - Math.clz32(firstBits & -firstBits)]!;
+  out.last = base + 120 * lastWord + WORD_BIT_VALUE[31 - Math.clz32(lastBits)]!;
+}

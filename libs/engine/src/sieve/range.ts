@@ -1,0 +1,133 @@
+import { inputError, limitError } from '../errors';
+import { primesUpTo } from '../primes/small-primes';
+import { sieveCore } from './core';
+import { compilePattern, type CompiledPattern } from './pattern';
+import type { PrimeBlock } from './prime-block';
+
+/** Largest upper end `to` the sieve accepts: 10^15 (all positions stay exact as numbers). */
+export const SIEVE_MAX_TO = 10n ** 15n;
+
+/** What to compute besides π: gap statistics and constellation patterns. */
+export interface SieveOptions {
+  /** Gap histogram and record gaps (costs a pass over every prime). Default false. */
+  readonly gaps?: boolean;
+  /** Constellation patterns H (each any order, normalized to start at 0; must be admissible). */
+  readonly patterns?: ReadonlyArray<ReadonlyArray<number | bigint | string>>;
+}
+
+/** A range end given as bigint, safe integer or decimal string. */
+export type RangeEnd = bigint | number | string;
+
+/**
+ * Reads a range [from, to] of non-negative integers with to ≤ SIEVE_MAX_TO.
+ * @throws EngineError(input) for a non-integer end or from > to; EngineError(limit) for to > 10^15.
+ */
+export function parseSieveRange(from: RangeEnd, to: RangeEnd): { from: bigint; to: bigint } {
+  const f = toBig(from, 'from');
+  const t = toBig(to, 'to');
+  if (f < 0n) throw inputError(`range start ${f} is negative`);
+  if (f > t) throw inputError(`empty range: from ${f} is above to ${t}`);
+  if (t > SIEVE_MAX_TO) throw limitError(`range end ${t} is above the sieve limit ${SIEVE_MAX_TO}`);
+  return { from: f, to: t };
+}
+
+function toBig(v: RangeEnd, name: string): bigint {
+  if (typeof v === 'bigint') return v;
+  if (typeof v === 'number') {
+    if (!Number.isSafeInteger(v)) throw inputError(`range ${name} ${v} is not a safe integer (pass a bigint or a string)`);
+    return BigInt(v);
+  }
+  const s = v.trim();
+  const m = /^(\d+)(?:e(\d+))?$/i.exec(s);
+  if (!m) throw inputError(`range ${name} "${v}" is not a non-negative integer`);
+  return BigInt(m[1]!) * 10n ** BigInt(m[2] ?? '0');
+}
+
+let sievingCache: Uint32Array = new Uint32Array(0);
+let sievingBound = 0;
+
+/** Every prime ≤ √to (cached, grown on demand). */
+export function sievingPrimesFor(to: number): Uint32Array {
+  let r = Math.floor(Math.sqrt(to));
+  while (r * r > to) r--;
+  while ((r + 1) * (r + 1) <= to) r++;
+  if (r > sievingBound) {
+    sievingCache = primesUpTo(Math.max(r, 2 * sievingBound, 1000));
+    sievingBound = Math.max(r, 2 * sievingBound, 1000);
+  }
+  return sievingCache;
+}
+
+/**
+ * Sieves the range [from, to] and returns its combinable summary: π over the range, first and last
+ * prime, optionally the gap histogram and record gaps, and for each pattern H the number of n with
+ * n + h prime for every h ∈ H, n ≥ from and n + max H ≤ to, with the first and last such n.
+ * Segmented sieve of Eratosthenes on the mod-30 wheel; time about (to − from)·log log to, memory
+ * O(√to / log to).
+ * @throws EngineError(input) for a malformed range or pattern, EngineError(domain) for a
+ *   non-admissible pattern, EngineError(limit) for to > 10^15.
+ */
+export function sievePrimeBlock(from: RangeEnd, to: RangeEnd, options: SieveOptions = {}): PrimeBlock {
+  const range = parseSieveRange(from, to);
+  const compiled = (options.patterns ?? []).map((p) => compilePattern(p));
+  return sieveCompiled(range.from, range.to, compiled, options.gaps ?? false);
+}
+
+/** {@link sievePrimeBlock} on a checked range with compiled patterns. */
+export function sieveCompiled(from: bigint, to: bigint, compiled: readonly CompiledPattern[], gaps: boolean): PrimeBlock {
+  const a = Number(from);
+  const b = Number(to);
+  const sieving = sievingPrimesFor(b);
+  const core = sieveCore(a, b, compiled, gaps, sieving);
+  const window = compiled.reduce((w, cp) => Math.max(w, cp.diameter), 0);
+  let headPrimes: number[] = [];
+  let tailPrimes: number[] = [];
+  if (window > 0) {
+    headPrimes = primesInShortRange(a, Math.min(b, a + window - 1), sieving).map((p) => p - a);
+    tailPrimes = primesInShortRange(Math.max(a, b - window + 1), b, sieving).map((p) => b - p).reverse();
+  }
+  const big = (v: number): bigint | null => (v < 0 ? null : BigInt(v));
+  let gapStats: PrimeBlock['gaps'] = null;
+  if (core.gaps) {
+    const histogram = new Map<number, number>();
+    core.gaps.histogram.forEach((c, g) => {
+      if (c > 0) histogram.set(g, c);
+    });
+    gapStats = { histogram, records: core.gaps.records.map((r) => ({ gap: r.gap, after: BigInt(r.after) })) };
+  }
+  return {
+    from,
+    to,
+    primeCount: core.primeCount,
+    firstPrime: big(core.firstPrime),
+    lastPrime: big(core.lastPrime),
+    gaps: gapStats,
+    patterns: compiled.map((cp, i) => ({
+      pattern: cp.offsets,
+      count: core.patterns[i]!.count,
+      first: big(core.patterns[i]!.first),
+      last: big(core.patterns[i]!.last),
+    })),
+    window,
+    headPrimes,
+    tailPrimes,
+  };
+}
+
+/** The primes in [lo, hi] for a short interval, by a plain sieve with the given sieving primes. */
+function primesInShortRange(lo: number, hi: number, sieving: Uint32Array): number[] {
+  if (hi < lo) return [];
+  const size = hi - lo + 1;
+  const composite = new Uint8Array(size);
+  for (let i = 0; i < sieving.length; i++) {
+    const p = sieving[i]!;
+    if (p * p > hi) break;
+    const rem = lo % p;
+    let start = rem === 0 ? lo : lo - rem + p;
+    if (start < p * p) start = p * p;
+    for (let n = start; n <= hi; n += p) composite[n - lo] = 1;
+  }
+  const out: number[] = [];
+  for (let i = 0; i < size; i++) if (!composite[i] && lo + i >= 2) out.push(lo + i);
+  return out;
+}
