@@ -5,3 +5,9 @@ export interface ApiError {
   message: string;
   details?: unknown;
 }
+
+/** `details` of a 400 validation error: one entry per offending field (dotted path for nested ones). */
+export interface FieldProblem {
+  field: string;
+  messages: string[];
+}

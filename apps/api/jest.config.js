@@ -1,0 +1,33 @@
+// Jest for the API: unit specs beside the code (src/**/*.spec.ts) and HTTP tests (test/*.e2e-spec.ts)
+// against the real PostgreSQL that `npm test` starts (DATABASE_URL etc. come from the launcher).
+const swc = {
+  jsc: {
+    parser: { syntax: 'typescript', decorators: true },
+    transform: { legacyDecorator: true, decoratorMetadata: true },
+    target: 'es2022',
+    keepClassNames: true,
+  },
+  module: { type: 'commonjs' },
+  sourceMaps: 'inline',
+};
+
+/** @type {import('jest').Config} */
+module.exports = {
+  rootDir: __dirname,
+  testEnvironment: 'node',
+  testMatch: ['<rootDir>/src/**/*.spec.ts', '<rootDir>/test/**/*.e2e-spec.ts'],
+  moduleFileExtensions: ['ts', 'js', 'mjs', 'json'],
+  transform: {
+    '^.+\\.ts$': ['@swc/jest', swc],
+    // chevrotain (used by @cribra/lang) ships only ES modules; Jest on Node 20 needs them as CommonJS.
+    '^.+\\.m?js$': ['@swc/jest', { ...swc, jsc: { ...swc.jsc, parser: { syntax: 'ecmascript' } } }],
+  },
+  transformIgnorePatterns: ['/node_modules/(?!(chevrotain|@chevrotain|lodash-es)/)', '/dist/'],
+  // Our libraries are read from source, like vitest does.
+  moduleNameMapper: {
+    '^@cribra/engine/node$': '<rootDir>/../../libs/engine/src/node/index.ts',
+    '^@cribra/(engine|lang|contracts)$': '<rootDir>/../../libs/$1/src/index.ts',
+  },
+  testTimeout: 30_000,
+  maxWorkers: 1,
+};

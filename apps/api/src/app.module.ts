@@ -1,0 +1,31 @@
+import { Module } from '@nestjs/common';
+import { ConfigModule, ConfigType } from '@nestjs/config';
+import { TypeOrmModule } from '@nestjs/typeorm';
+import { AdminModule } from './admin/admin.module';
+import { AuthModule } from './auth/auth.module';
+import { SessionStoreService } from './auth/session-store.service';
+import { CommonModule } from './common/common.module';
+import { appConfig } from './config/app.config';
+import { makeDataSourceOptions } from './database/data-source';
+import { HealthModule } from './health/health.module';
+import { MailModule } from './mail/mail.module';
+import { UsersModule } from './users/users.module';
+
+@Module({
+  imports: [
+    ConfigModule.forRoot({ isGlobal: true, ignoreEnvFile: true, load: [appConfig] }),
+    TypeOrmModule.forRootAsync({
+      inject: [appConfig.KEY],
+      useFactory: (cfg: ConfigType<typeof appConfig>) => makeDataSourceOptions(cfg.databaseUrl),
+    }),
+    CommonModule,
+    MailModule,
+    UsersModule,
+    AuthModule,
+    AdminModule,
+    HealthModule,
+    // Feature modules (notebooks, runs, …) are added below this line.
+  ],
+  providers: [SessionStoreService],
+})
+export class AppModule {}

@@ -1,0 +1,14 @@
+import { IsNotEmpty, IsString, MaxLength, MinLength } from 'class-validator';
+import { MIN_PASSWORD_LENGTH, type ResetConfirmBody } from '@cribra/contracts';
+
+export class ResetConfirmDto implements ResetConfirmBody {
+  @IsString()
+  @IsNotEmpty({ message: 'token must not be empty' })
+  @MaxLength(200)
+  token!: string;
+
+  @IsString()
+  @MinLength(MIN_PASSWORD_LENGTH, { message: `newPassword must be at least ${MIN_PASSWORD_LENGTH} characters` })
+  @MaxLength(200)
+  newPassword!: string;
+}

@@ -1,0 +1,8 @@
+import { IsEmail, MaxLength } from 'class-validator';
+import type { ResetRequestBody } from '@cribra/contracts';
+
+export class ResetRequestDto implements ResetRequestBody {
+  @IsEmail({}, { message: 'email must be a valid e-mail address' })
+  @MaxLength(320)
+  email!: string;
+}

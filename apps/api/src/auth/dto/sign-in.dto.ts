@@ -1,0 +1,13 @@
+import { IsEmail, IsNotEmpty, IsString, MaxLength } from 'class-validator';
+import type { SignInBody } from '@cribra/contracts';
+
+export class SignInDto implements SignInBody {
+  @IsEmail({}, { message: 'email must be a valid e-mail address' })
+  @MaxLength(320)
+  email!: string;
+
+  @IsString()
+  @IsNotEmpty({ message: 'password must not be empty' })
+  @MaxLength(200)
+  password!: string;
+}

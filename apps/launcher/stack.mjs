@@ -1,0 +1,114 @@
+// The whole Cribra stack for one run: build, PostgreSQL, migrations, demo data, SMTP fake, API, runner.
+import { existsSync, readdirSync, statSync } from 'node:fs';
+import { join } from 'node:path';
+import { ROOT, LaunchError, requireFreePorts, run, startService, step, stopService, waitForHttp, warn } from './common.mjs';
+import { cluster, ensurePostgresBinaries } from './postgres.mjs';
+
+const node = process.execPath;
+const bin = (p) => join(ROOT, 'node_modules', p);
+
+function newestMtime(path) {
+  if (!existsSync(path)) return 0;
+  const st = statSync(path);
+  if (!st.isDirectory()) return st.mtimeMs;
+  let newest = 0;
+  for (const name of readdirSync(path)) {
+    if (name === 'node_modules' || name === 'dist') continue;
+    newest = Math.max(newest, newestMtime(join(path, name)));
+  }
+  return newest;
+}
+
+/** `tsc -b` (node packages) then `vite build` (web app; skipped when its output is newer than every input). */
+export function build({ forceWeb = false } = {}) {
+  step('Compiling TypeScript (tsc -b)…');
+  run(node, [bin('typescript/bin/tsc'), '-b'], { what: 'tsc -b (type errors above)' });
+  const index = join(ROOT, 'apps/web/dist/index.html');
+  const inputs = ['apps/web', 'libs', 'vite.config.ts', 'package-lock.json'].map((p) => newestMtime(join(ROOT, p)));
+  if (!forceWeb && existsSync(index) && statSync(index).mtimeMs > Math.max(...inputs)) {
+    step('Web app is up to date (apps/web/dist).');
+    return;
+  }
+  step('Building the web app (vite build)…');
+  run(node, [bin('vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { what: 'vite build' });
+}
+
+/**
+ * Brings up PostgreSQL and the services. `ports` = {api, pg, smtp, mailWeb}.
+ * Returns {env, services, stop()}; stop() is idempotent and stops only what this call started.
+ */
+export async function bringUp({ ports, dataDir, dbName = 'cribra', sessionSecret, envName, extraEnv = {}, withRunner = true }) {
+  const pgBin = ensurePostgresBinaries();
+  await requireFreePorts([
+    [ports.api, 'Cribra API and web'],
+    [ports.smtp, 'SMTP fake'],
+    [ports.mailWeb, 'SMTP fake inbox page'],
+  ]);
+  const pg = cluster({ bin: pgBin, dataDir, port: ports.pg });
+  const services = [];
+  let stopped = false;
+  const stop = async () => {
+    if (stopped) return;
+    stopped = true;
+    for (const child of [...services].reverse()) await stopService(child);
+    pg.stop();
+  };
+
+  try {
+    pg.init();
+    await pg.start();
+    if (pg.createDatabase(dbName)) step(`Created database ${dbName}.`);
+
+    const env = {
+      ...process.env,
+      DATABASE_URL: pg.url(dbName),
+      PORT: String(ports.api),
+      PUBLIC_URL: `http://127.0.0.1:${ports.api}`,
+      SMTP_HOST: '127.0.0.1',
+      SMTP_PORT: String(ports.smtp),
+      MAIL_API_URL: `http://127.0.0.1:${ports.mailWeb}`,
+      SESSION_SECRET: sessionSecret,
+      SIGNUP_MODE: process.env.SIGNUP_MODE ?? 'open',
+      WEB_DIST: join(ROOT, 'apps/web/dist'),
+      CRIBRA_ENV: envName,
+      ...extraEnv,
+    };
+
+    step('Running database migrations…');
+    run(node, ['apps/api/dist/database/migrate.js', 'up'], { env, what: 'Migrations' });
+    step('Loading the demo data…');
+    run(node, ['apps/api/dist/demo/seed-demo.js'], { env, what: 'Loading the demo data' });
+
+    step(`Starting the SMTP fake (SMTP ${ports.smtp}, inbox ${ports.mailWeb})…`);
+    const mail = startService('mail', node, [
+      bin('maildev/dist/bin/maildev.js'), '--smtp', String(ports.smtp), '--ip', '127.0.0.1',
+      '--web', String(ports.mailWeb), '--web-ip', '127.0.0.1', '--silent',
+    ], env);
+    services.push(mail);
+    await waitForHttp(`${env.MAIL_API_URL}/api/healthz`, { child: mail, name: 'The SMTP fake', timeoutMs: 30_000 });
+
+    step(`Starting the API on 127.0.0.1:${ports.api}…`);
+    const api = startService('api', node, ['apps/api/dist/main.js'], env);
+    services.push(api);
+    await waitForHttp(`${env.PUBLIC_URL}/api/health`, { child: api, name: 'The API', timeoutMs: 60_000 });
+
+    const runnerMain = join(ROOT, 'apps/runner/dist/main.js');
+    if (withRunner && existsSync(runnerMain)) {
+      step('Starting one runner…');
+      services.push(startService('runner', node, [runnerMain], env));
+    } else if (withRunner) {
+      warn('No runner yet (apps/runner/dist/main.js is missing): queued work will wait.');
+    }
+    return { env, services, stop };
+  } catch (e) {
+    await stop();
+    throw e;
+  }
+}
+
+/** Calls `onExit(child)` when any service ends on its own. */
+export function watchServices(services, onExit) {
+  for (const child of services) child.once('exit', (code, signal) => onExit(child, code, signal));
+}
+
+export { LaunchError };

@@ -1,0 +1,74 @@
+// `npm start`: one command from a fresh clone to a running Cribra on http://127.0.0.1:4310.
+import { randomBytes } from 'node:crypto';
+import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
+import { join } from 'node:path';
+import { ROOT, LaunchError, bold, ensureDependencies, step, warn } from './common.mjs';
+import { bringUp, build, watchServices } from './stack.mjs';
+
+const PORTS = { api: 4310, pg: 4311, smtp: 4312, mailWeb: 4313 };
+const DATA = join(ROOT, '.data');
+const t0 = Date.now();
+
+function sessionSecret() {
+  // Kept in .data so that sessions survive restarts.
+  const file = join(DATA, 'session-secret');
+  if (!existsSync(file)) writeFileSync(file, randomBytes(32).toString('hex'), { mode: 0o600 });
+  return readFileSync(file, 'utf8').trim();
+}
+
+function banner(env) {
+  let users = [];
+  try {
+    users = JSON.parse(readFileSync(join(ROOT, 'seeds-demo/users.json'), 'utf8')).users;
+  } catch {
+    /* no demo users */
+  }
+  const w = Math.max(...users.map((u) => u.email.length), 10);
+  console.log('');
+  console.log(bold(`Cribra is running (ready in ${((Date.now() - t0) / 1000).toFixed(0)} s)`));
+  console.log(`  App and API     ${bold(env.PUBLIC_URL + '/')}   (API under /api, OpenAPI at /api/docs)`);
+  console.log(`  Mail inbox      ${env.MAIL_API_URL}/   (password-reset mails land here)`);
+  console.log(`  PostgreSQL      ${env.DATABASE_URL}   (data in .data/postgres)`);
+  console.log(`  More runners    DATABASE_URL=${env.DATABASE_URL} npm run runner`);
+  if (users.length) {
+    console.log('  Demo accounts:');
+    for (const u of users) console.log(`    ${u.email.padEnd(w)}  ${u.password.padEnd(20)} ${u.siteRole}  ${u.displayName}`);
+  }
+  console.log('Press Ctrl-C to stop (the data stays in .data/).');
+}
+
+async function main() {
+  mkdirSync(DATA, { recursive: true });
+  ensureDependencies();
+  build();
+  const stack = await bringUp({
+    ports: PORTS,
+    dataDir: join(DATA, 'postgres'),
+    sessionSecret: sessionSecret(),
+    envName: 'development',
+  });
+  let stopping = false;
+  const shutdown = async (code) => {
+    if (stopping) return;
+    stopping = true;
+    step('Stopping Cribra (runner, API, SMTP fake, PostgreSQL)…');
+    await stack.stop();
+    step('Stopped. Data kept in .data/.');
+    process.exit(code);
+  };
+  process.on('SIGINT', () => shutdown(0));
+  process.on('SIGTERM', () => shutdown(0));
+  process.on('SIGHUP', () => shutdown(0));
+  watchServices(stack.services, (child, code, signal) => {
+    if (stopping) return;
+    warn(`${child.serviceName} stopped unexpectedly (${signal ?? `exit code ${code}`}); shutting down.`);
+    shutdown(1);
+  });
+  banner(stack.env);
+}
+
+main().catch((e) => {
+  if (e instanceof LaunchError) console.error(`\n✖ ${e.message}`);
+  else console.error(e);
+  process.exit(1);
+});
