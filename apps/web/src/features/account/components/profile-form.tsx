@@ -1,0 +1,36 @@
+import type { UserView } from '@cribra/contracts';
+import { Alert, Button, Stack, TextField } from '@mui/material';
+import { type FormEvent, useState } from 'react';
+import { ApiRequestError, errorMessage } from '../../../lib/api-error';
+import { requiredProblem } from '../../../lib/validation';
+import { useUpdateProfile } from '../api/update-profile';
+
+export function ProfileForm({ user }: { user: UserView }) {
+  const [displayName, setDisplayName] = useState(user.displayName);
+  const [problem, setProblem] = useState<string | undefined>();
+  const update = useUpdateProfile();
+  const unchanged = displayName.trim() === user.displayName;
+
+  const submit = (e: FormEvent) => {
+    e.preventDefault();
+    const found = requiredProblem(displayName, 'a display name');
+    setProblem(found);
+    if (!found) update.mutate({ displayName: displayName.trim() });
+  };
+  const notAvailable = update.error instanceof ApiRequestError && update.error.statusCode === 404;
+
+  return (
+    <Stack component="form" noValidate onSubmit={submit} spacing={2} aria-label="Profile">
+      <TextField label="E-mail" value={user.email} disabled helperText="Your sign-in address." />
+      <TextField label="Display name" value={displayName} onChange={(e) => setDisplayName(e.target.value)}
+        error={!!problem} helperText={problem ?? 'Shown beside your cells, comments and sign-offs.'} />
+      {update.isSuccess && unchanged && <Alert severity="success" role="status">Display name saved.</Alert>}
+      {update.isError && (
+        <Alert severity="error">{notAvailable ? 'Changing the display name is not available on this server yet.' : errorMessage(update.error)}</Alert>
+      )}
+      <div>
+        <Button type="submit" variant="contained" disabled={unchanged || update.isPending}>Save display name</Button>
+      </div>
+    </Stack>
+  );
+}

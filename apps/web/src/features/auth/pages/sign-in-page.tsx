@@ -1,0 +1,26 @@
+import { Link } from '@mui/material';
+import { Link as RouterLink, useNavigate, useSearchParams } from 'react-router-dom';
+import { useDocumentTitle } from '../../../hooks/use-document-title';
+import { safeNextPath } from '../../../lib/validation';
+import { AuthCard } from '../components/auth-card';
+import { SignInForm } from '../components/sign-in-form';
+
+export default function SignInPage() {
+  useDocumentTitle('Sign in');
+  const [params] = useSearchParams();
+  const navigate = useNavigate();
+  const next = safeNextPath(params.get('next'));
+  return (
+    <AuthCard
+      title="Sign in"
+      footer={
+        <>
+          <Link component={RouterLink} to={`/sign-up${params.get('next') ? `?next=${encodeURIComponent(next)}` : ''}`}>Create an account</Link>
+          <Link component={RouterLink} to="/reset">Forgot your password?</Link>
+        </>
+      }
+    >
+      <SignInForm onSignedIn={() => navigate(next, { replace: true })} />
+    </AuthCard>
+  );
+}
