@@ -10,6 +10,16 @@ import { makeDataSourceOptions } from './database/data-source';
 import { HealthModule } from './health/health.module';
 import { MailModule } from './mail/mail.module';
 import { UsersModule } from './users/users.module';
+import { AuditModule } from './audit/audit.module';
+import { MembersModule } from './members/members.module';
+import { NotebooksModule } from './notebooks/notebooks.module';
+import { CellsModule } from './cells/cells.module';
+import { QueueModule } from './queue/queue.module';
+import { RunsModule } from './runs/runs.module';
+import { LevelsModule } from './levels/levels.module';
+import { LedgerModule } from './ledger/ledger.module';
+import { UploadsModule } from './uploads/uploads.module';
+import { ExportsModule } from './exports/exports.module';
 
 @Module({
   imports: [
@@ -25,6 +35,16 @@ import { UsersModule } from './users/users.module';
     AdminModule,
     HealthModule,
     // Feature modules (notebooks, runs, …) are added below this line.
+    AuditModule,
+    MembersModule,
+    NotebooksModule,
+    CellsModule,
+    QueueModule,
+    RunsModule,
+    LevelsModule,
+    LedgerModule,
+    UploadsModule,
+    ExportsModule,
   ],
   providers: [SessionStoreService],
 })

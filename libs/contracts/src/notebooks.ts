@@ -354,6 +354,19 @@ export const LEDGER_BLOCK_SIZE = 10_000_000;
 /** Largest end the ledger accepts (exclusive), as a decimal string. */
 export const LEDGER_MAX_END = '100000000000';
 
+/**
+ * The constellations every ledger block counts (n with n + h prime for all h), keyed by the name
+ * used in `constellations`. All are admissible; counted when the whole pattern lies in the block.
+ */
+export const LEDGER_CONSTELLATIONS: Readonly<Record<string, readonly number[]>> = {
+  twin: [0, 2],
+  cousin: [0, 4],
+  sexy: [0, 6],
+  'triplet-0-2-6': [0, 2, 6],
+  'triplet-0-4-6': [0, 4, 6],
+  quadruplet: [0, 2, 6, 8],
+};
+
 export interface RecordGap {
   gap: number;
   /** The prime that starts the gap, decimal string. */

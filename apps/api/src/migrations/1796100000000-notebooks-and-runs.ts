@@ -36,6 +36,15 @@ export class NotebooksAndRuns1796100000000 implements MigrationInterface {
     await q.query(`CREATE INDEX notebooks_status_updated_idx ON notebooks (status, updated_at DESC)`);
     await q.query(`CREATE INDEX notebooks_owner_idx ON notebooks (owner_id)`);
     await q.query(`CREATE INDEX notebooks_title_lower_idx ON notebooks (lower(title) text_pattern_ops)`);
+    await q.query(`
+      CREATE FUNCTION cribra_notebooks_notify() RETURNS trigger LANGUAGE plpgsql AS $$
+      BEGIN
+        PERFORM pg_notify('cribra_notebooks', json_build_object('notebookId', NEW.id, 'revision', NEW.revision)::text);
+        RETURN NEW;
+      END $$`);
+    await q.query(`
+      CREATE TRIGGER notebooks_notify AFTER UPDATE OF revision ON notebooks
+      FOR EACH ROW WHEN (OLD.revision IS DISTINCT FROM NEW.revision) EXECUTE FUNCTION cribra_notebooks_notify()`);
 
     await q.query(`
       CREATE TABLE notebook_members (
@@ -225,6 +234,7 @@ export class NotebooksAndRuns1796100000000 implements MigrationInterface {
     await q.query(`DROP TABLE cells`);
     await q.query(`DROP TABLE notebook_members`);
     await q.query(`DROP TABLE notebooks`);
+    await q.query(`DROP FUNCTION cribra_notebooks_notify()`);
     await q.query(`DROP FUNCTION cribra_tags_text(text[])`);
   }
 }

@@ -1,0 +1,20 @@
+import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
+import { IsIn, IsInt, IsOptional, IsString, MaxLength, Min } from 'class-validator';
+import { CELL_KINDS, CELL_SOURCE_MAX, type CellKind, type CreateCellBody } from '@cribra/contracts';
+
+export class CreateCellDto implements CreateCellBody {
+  @ApiProperty({ enum: CELL_KINDS })
+  @IsIn(CELL_KINDS as CellKind[], { message: 'kind must be query, claim or note' })
+  kind!: CellKind;
+
+  @ApiProperty({ maxLength: CELL_SOURCE_MAX })
+  @IsString()
+  @MaxLength(CELL_SOURCE_MAX)
+  source!: string;
+
+  @ApiPropertyOptional({ description: 'Insert before the cell now at this position; default: append' })
+  @IsOptional()
+  @IsInt()
+  @Min(0)
+  position?: number;
+}

@@ -1,0 +1,35 @@
+import type { RunOutput } from '@cribra/contracts';
+
+export interface Table {
+  columns: string[];
+  rows: unknown[][];
+}
+
+/** A table output has `columns` and `rows` (see RunOutput); anything else is not exportable as one. */
+export function asTable(output: RunOutput | undefined): Table | null {
+  if (!output) return null;
+  const { columns, rows } = output as { columns?: unknown; rows?: unknown };
+  if (!Array.isArray(columns) || !Array.isArray(rows) || !rows.every(Array.isArray)) return null;
+  return { columns: columns.map(cellText), rows: rows as unknown[][] };
+}
+
+/** Text of one cell value: strings as is, numbers and bigints as decimals, objects as JSON. */
+export function cellText(v: unknown): string {
+  if (v === null || v === undefined) return '';
+  if (typeof v === 'string') return v;
+  if (typeof v === 'number' || typeof v === 'bigint' || typeof v === 'boolean') return String(v);
+  const o = v as { kind?: string; value?: unknown; text?: unknown };
+  if (o && typeof o === 'object' && 'value' in o && (typeof o.value === 'string' || typeof o.value === 'number')) return String(o.value);
+  return JSON.stringify(v);
+}
+
+/** RFC 4180 CSV: fields with a comma, quote or line break are quoted, quotes doubled; CRLF lines. */
+export function toCsv(t: Table): string {
+  const field = (s: string): string => (/[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
+  return [t.columns, ...t.rows.map((r) => r.map(cellText))].map((r) => r.map(field).join(',')).join('\r\n') + '\r\n';
+}
+
+/** JSON: one object per row keyed by column name (values as in the output). */
+export function toJsonRows(t: Table): Array<Record<string, unknown>> {
+  return t.rows.map((r) => Object.fromEntries(t.columns.map((c, i) => [c, r[i] ?? null])));
+}

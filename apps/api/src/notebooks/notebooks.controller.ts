@@ -1,0 +1,59 @@
+import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Query, UseGuards } from '@nestjs/common';
+import { ApiCookieAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
+import type { NotebookSummary, NotebookView, Page } from '@cribra/contracts';
+import { CurrentUser, SignedInGuard } from '../common';
+import type { UserEntity } from '../users/user.entity';
+import { NotebookPolicyService } from '../members/notebook-policy.service';
+import { CreateNotebookDto } from './dto/create-notebook.dto';
+import { ListNotebooksDto } from './dto/list-notebooks.dto';
+import { UpdateNotebookDto } from './dto/update-notebook.dto';
+import { NotebooksService } from './notebooks.service';
+
+@ApiTags('notebooks')
+@ApiCookieAuth()
+@UseGuards(SignedInGuard)
+@Controller('notebooks')
+export class NotebooksController {
+  constructor(
+    private readonly notebooks: NotebooksService,
+    private readonly policy: NotebookPolicyService,
+  ) {}
+
+  @Get()
+  @ApiOperation({ summary: 'My notebooks: search (q), filter by tag, status and my role' })
+  list(@CurrentUser() user: UserEntity, @Query() query: ListNotebooksDto): Promise<Page<NotebookSummary>> {
+    return this.notebooks.list(user, query);
+  }
+
+  @Post()
+  @ApiOperation({ summary: 'Create a notebook (you become its owner)' })
+  create(@CurrentUser() user: UserEntity, @Body() body: CreateNotebookDto): Promise<NotebookView> {
+    return this.notebooks.create(user, body);
+  }
+
+  @Get(':id')
+  @ApiOperation({ summary: 'A notebook with its cells (each with its latest run) and members' })
+  async get(@CurrentUser() user: UserEntity, @Param('id', ParseUUIDPipe) id: string): Promise<NotebookView> {
+    await this.policy.authorize(user, 'notebook.read', id);
+    return this.notebooks.view(user, id);
+  }
+
+  @Patch(':id')
+  @ApiOperation({ summary: 'Edit title, summary, tags or required sign-offs (409 on a stale revision)' })
+  async update(
+    @CurrentUser() user: UserEntity,
+    @Param('id', ParseUUIDPipe) id: string,
+    @Body() body: UpdateNotebookDto,
+  ): Promise<NotebookView> {
+    await this.policy.authorize(user, 'notebook.update', id);
+    return this.notebooks.update(user, id, body);
+  }
+
+  @Delete(':id')
+  @HttpCode(204)
+  @ApiOperation({ summary: 'Delete a notebook with its cells, runs and uploads (owner)' })
+  async remove(@CurrentUser() user: UserEntity, @Param('id', ParseUUIDPipe) id: string): Promise<void> {
+    await this.policy.authorize(user, 'notebook.delete', id);
+    await this.notebooks.remove(user, id);
+  }
+}

@@ -1,0 +1,97 @@
+import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { DataSource } from 'typeorm';
+import { QUEUES, type Page, type RunCellJob, type RunPurpose, type RunView } from '@cribra/contracts';
+import { AuditService } from '../audit/audit.service';
+import type { Actor } from '../members/notebook-policy.service';
+import { QueueService } from '../queue/queue.service';
+import { loadRun, loadRuns, pageRuns } from './run-views';
+
+/** Creates runs (a row plus a pg-boss job each), cancels them and reads their history. */
+@Injectable()
+export class RunsService {
+  constructor(
+    @InjectDataSource() private readonly db: DataSource,
+    private readonly queue: QueueService,
+    private readonly audit: AuditService,
+  ) {}
+
+  async get(id: string): Promise<RunView> {
+    const run = await loadRun(this.db, id);
+    if (!run) throw new NotFoundException('Run not found');
+    return run;
+  }
+
+  async notebookOfRun(id: string): Promise<string> {
+    const rows: Array<{ notebook_id: string }> = await this.db.query(`SELECT notebook_id FROM runs WHERE id = $1`, [id]);
+    if (!rows.length) throw new NotFoundException('Run not found');
+    return rows[0].notebook_id;
+  }
+
+  /**
+   * Queues a run of the cell's current revision. `purpose` 'reverify' is for the review feature.
+   * Note cells have nothing to execute (400).
+   */
+  async runCell(actor: Actor, cellId: string, purpose: RunPurpose = 'run'): Promise<RunView> {
+    const cells: Array<{ id: string; notebook_id: string; kind: string; source: string; revision: number }> = await this.db.query(
+      `SELECT id, notebook_id, kind, source, revision FROM cells WHERE id = $1`,
+      [cellId],
+    );
+    if (!cells.length) throw new NotFoundException('Cell not found');
+    const cell = cells[0];
+    if (cell.kind === 'note') {
+      throw new BadRequestException({ message: 'Note cells have nothing to run', details: [{ field: 'kind', messages: ['a note cell cannot run'] }] });
+    }
+    const [{ id }] = await this.db.query(
+      `INSERT INTO runs (notebook_id, cell_id, cell_revision, cell_kind, source, purpose, requested_by)
+       VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
+      [cell.notebook_id, cell.id, cell.revision, cell.kind, cell.source, purpose, actor.id],
+    );
+    try {
+      const job: RunCellJob = { runId: id };
+      const jobId = await this.queue.send(QUEUES.runCell, job);
+      await this.db.query(`UPDATE runs SET job_id = $2 WHERE id = $1`, [id, jobId]);
+    } catch (err) {
+      await this.db.query(
+        `UPDATE runs SET status = 'failed', finished_at = now(), error = $2 WHERE id = $1`,
+        [id, JSON.stringify({ kind: 'internal', message: 'The run could not be queued' })],
+      );
+      throw err;
+    }
+    return this.get(id);
+  }
+
+  /** Queues every query and claim cell of the notebook, top to bottom. */
+  async runAll(actor: Actor, notebookId: string, purpose: RunPurpose = 'run'): Promise<RunView[]> {
+    const cells: Array<{ id: string }> = await this.db.query(
+      `SELECT id FROM cells WHERE notebook_id = $1 AND kind <> 'note' ORDER BY position`,
+      [notebookId],
+    );
+    const ids: string[] = [];
+    for (const c of cells) ids.push((await this.runCell(actor, c.id, purpose)).id);
+    return loadRuns(this.db, ids);
+  }
+
+  /** Cancels a queued or running run; a runner notices within a second and stops. */
+  async cancel(actor: Actor, id: string): Promise<RunView> {
+    const [rows] = await this.db.query(
+      `UPDATE runs SET status = 'cancelled', finished_at = now(),
+              duration_ms = CASE WHEN started_at IS NULL THEN NULL ELSE (extract(epoch FROM now() - started_at) * 1000)::int END,
+              error = $2
+        WHERE id = $1 AND status IN ('queued', 'running') RETURNING job_id, notebook_id`,
+      [id, JSON.stringify({ kind: 'cancelled', message: 'Cancelled by a member' })],
+    );
+    if (!rows.length) {
+      const run = await this.get(id);
+      throw new ConflictException({ message: `The run already ${run.status}`, details: { status: run.status } });
+    }
+    if (rows[0].job_id) await this.queue.cancel(QUEUES.runCell, rows[0].job_id).catch(() => undefined);
+    await this.audit.record(actor.id, 'run.cancel', rows[0].notebook_id, { runId: id });
+    return this.get(id);
+  }
+
+  async history(column: 'cell_id' | 'notebook_id', id: string, page = 1, pageSize = 20): Promise<Page<RunView>> {
+    const { items, total } = await pageRuns(this.db, column, id, page, pageSize);
+    return { items, total, page, pageSize };
+  }
+}
