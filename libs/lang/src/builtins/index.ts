@@ -1,0 +1,2 @@
+// Registers every builtin (imported for its side effect by evaluate and the language service).
+import './core';
