@@ -1,0 +1,122 @@
+import { limitError } from '../errors';
+import { combineWheelChunks, planWheelChunks, runWheelChunk, type WheelChunkTally } from './chunk';
+import { MAX_MEMORY_LEVEL, wheelGaps } from './level-gaps';
+import { checkLevel, previousPrime, primorial, primorialTotient } from './primorial';
+import { nextHistogram } from './recursion';
+import { cycleHistogramAndPairSums, scanGapCycle } from './scan';
+import { histogramFromDense, histogramMaxGap, pairSums, patternsFromDense, type GapHistogram, type PatternTally } from './tally';
+
+/** Summary of a wheel level: modulus p#, φ(p#) members, the largest gap (Jacobsthal value) and the histogram. */
+export interface WheelLevelSummary {
+  readonly prime: number;
+  readonly modulus: bigint;
+  readonly members: bigint;
+  readonly maxGap: number;
+  readonly histogram: GapHistogram;
+}
+
+/** Full statistics of an enumerated level: summary plus first positions and pattern tallies. */
+export interface WheelLevelStats extends WheelLevelSummary {
+  /** gap → least member m in [1, p#] whose next member is m + gap. */
+  readonly firstPosition: ReadonlyMap<number, number>;
+  /** length (2 … 4) → tally of consecutive gap patterns over one period. */
+  readonly patterns: ReadonlyMap<number, PatternTally>;
+}
+
+/** Default bound on base-cycle steps a synchronous call may stream (about 2–5 s). */
+export const DEFAULT_STREAM_STEPS = 2e9;
+
+/**
+ * Streams level `target` over the in-memory level 23 (or the previous level when target ≤ 23) in one
+ * thread and returns the combined tallies.
+ * @throws EngineError(limit) when the walk would exceed `maxSteps` base steps.
+ */
+export function streamLevel(target: number, patternLength: 1 | 2 | 3 | 4, maxSteps = DEFAULT_STREAM_STEPS, radix?: number): WheelChunkTally {
+  checkLevel(target, 41);
+  const base = Math.min(previousPrime(target), MAX_MEMORY_LEVEL);
+  const gaps = wheelGaps(base);
+  const specs = planWheelChunks(base, target, 64, patternLength, radix);
+  const copies = specs[specs.length - 1]!.copyTo;
+  if (copies * gaps.length > maxSteps) {
+    throw limitError(`streaming level ${target} takes ${copies * gaps.length} steps, above the limit ${maxSteps} (use the parallel driver)`);
+  }
+  return combineWheelChunks(specs.map((s) => runWheelChunk(s, gaps)));
+}
+
+/** Sums the dense length-L tally over its last gap, giving the length-(L−1) tally (full periods only). */
+function shorterPatterns(t: WheelChunkTally): Map<number, PatternTally> {
+  const out = new Map<number, PatternTally>();
+  if (!t.patterns) return out;
+  const R = t.radix + 1;
+  let dense = t.patterns;
+  for (let L = t.patternLength; L >= 2; L--) {
+    out.set(L, patternsFromDense(dense, L, R, t.radix));
+    const next = new Float64Array(dense.length / R);
+    for (let i = 0; i < next.length; i++) {
+      let s = 0;
+      for (let h = 0; h < R; h++) s += dense[i * R + h]!;
+      next[i] = s;
+    }
+    dense = next;
+  }
+  return out;
+}
+
+/**
+ * Consecutive pair sums T2_P(g) of level P (P ≤ 23 by scanning the cycle, deeper by streaming).
+ * @throws EngineError(limit) when streaming would exceed `maxSteps`.
+ */
+export function levelPairSums(P: number, maxSteps = DEFAULT_STREAM_STEPS): GapHistogram {
+  if (P <= MAX_MEMORY_LEVEL) return cycleHistogramAndPairSums(wheelGaps(P)).pairSums;
+  const t = streamLevel(P, 2, maxSteps);
+  return pairSums(patternsFromDense(t.patterns!, 2, t.radix + 1, t.radix));
+}
+
+/**
+ * Gap histogram of wheel level p (one period). Levels ≤ 23 by enumeration; deeper levels by the
+ * recursion {@link nextHistogram} with the previous level's pair sums (scanned or streamed), or by
+ * streaming level p itself when the recursion's condition fails. 29# takes one scan of 23#;
+ * 31# streams 29# (about 10^9 steps); 37# needs the parallel driver (`@cribra/engine/node`).
+ * @throws EngineError(input) when p is not a prime; EngineError(limit) when the work would exceed
+ *   `maxSteps` streamed steps (default {@link DEFAULT_STREAM_STEPS}).
+ */
+export function gapHistogram(p: number, maxSteps = DEFAULT_STREAM_STEPS): GapHistogram {
+  checkLevel(p, 41);
+  if (p <= MAX_MEMORY_LEVEL) return cycleHistogramAndPairSums(wheelGaps(p)).histogram;
+  const P = previousPrime(p);
+  const prev = gapHistogram(P, maxSteps);
+  if (histogramMaxGap(prev) < 2 * p) return nextHistogram(prev, levelPairSums(P, maxSteps), p);
+  return histogramFromDense(streamLevel(p, 1, maxSteps).histogram);
+}
+
+/**
+ * Summary of wheel level p: modulus, number of members, largest gap, histogram (see {@link gapHistogram}).
+ * @throws EngineError as {@link gapHistogram}.
+ */
+export function wheelLevel(p: number, maxSteps = DEFAULT_STREAM_STEPS): WheelLevelSummary {
+  const histogram = gapHistogram(p, maxSteps);
+  return { prime: p, modulus: primorial(p), members: primorialTotient(p), maxGap: histogramMaxGap(histogram), histogram };
+}
+
+/**
+ * Full statistics of level p ≤ 29: histogram, largest gap, first position of each gap and tallies of
+ * consecutive gap patterns of the given lengths (2 … 4). Levels ≤ 23 are scanned in memory; 29# is
+ * streamed from 23# (about 10^9 steps, several seconds).
+ * @throws EngineError(input) when p is not a prime or a length is not in 2 … 4; EngineError(limit) when p > 29.
+ */
+export function wheelLevelStats(p: number, patternLengths: readonly number[] = [2, 3, 4]): WheelLevelStats {
+  checkLevel(p, 29);
+  if (p <= MAX_MEMORY_LEVEL) {
+    const s = scanGapCycle(wheelGaps(p), patternLengths);
+    return { prime: p, modulus: primorial(p), members: primorialTotient(p), ...s };
+  }
+  const L = Math.max(1, ...patternLengths) as 1 | 2 | 3 | 4;
+  const t = streamLevel(p, L, 4e9);
+  const all = shorterPatterns(t);
+  const patterns = new Map<number, PatternTally>();
+  for (const len of patternLengths) patterns.set(len, all.get(len)!);
+  const firstPosition = new Map<number, number>();
+  for (let h = 0; h < t.radix; h++) if (t.firstPosition[h]! >= 0) firstPosition.set(2 * h, t.firstPosition[h]!);
+  const histogram = histogramFromDense(t.histogram);
+  return { prime: p, modulus: primorial(p), members: primorialTotient(p), maxGap: t.maxGap, histogram, firstPosition, patterns };
+}
