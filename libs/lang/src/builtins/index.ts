@@ -1,2 +1,5 @@
 // Registers every builtin (imported for its side effect by evaluate and the language service).
 import './core';
+import './tuples';
+import './wheel';
+import './primes';

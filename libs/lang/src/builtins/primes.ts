@@ -1,0 +1,114 @@
+import { combinePrimeBlockList, type PrimeBlock, sievePrimeBlock } from '@cribra/engine';
+import { domainError, limitError } from '../errors';
+import { IntRange, SiftRecord, Table, Tuple } from '../values/types';
+import { argRange, argTuple, type Builtin, type CallContext, defineBuiltins } from './registry';
+
+/** Ranges are sieved in blocks of this length, with progress and the time limit checked between blocks. */
+const BLOCK = 50_000_000n;
+/** Largest range end the sieve accepts. */
+const SIEVE_MAX = 10n ** 15n;
+
+interface SieveAsk {
+  gaps: boolean;
+  patterns: bigint[][];
+}
+
+/** Sieves lo..hi block by block (engine's segmented sieve), combining the block summaries exactly. */
+function sieveRange(r: IntRange, ask: SieveAsk, c: CallContext, fn: string): PrimeBlock {
+  if (r.primesOnly) throw domainError(`${fn}: give a plain range a..b (the function finds the primes itself)`, c.argSpans[0]);
+  const lo = r.lo < 0n ? 0n : r.lo;
+  const hi = r.hi;
+  if (hi < lo) throw domainError(`${fn}: the range ${r.lo}..${r.hi} is empty`, c.span);
+  if (hi > SIEVE_MAX) throw limitError(`${fn}: ranges end at 10^15 at most`, c.span);
+  const blocks: PrimeBlock[] = [];
+  const total = hi - lo + 1n;
+  for (let from = lo; from <= hi; from += BLOCK) {
+    const to = from + BLOCK - 1n < hi ? from + BLOCK - 1n : hi;
+    blocks.push(sievePrimeBlock(from, to, { gaps: ask.gaps, patterns: ask.patterns }));
+    c.tick(1000);
+    c.progress(Number(to - lo + 1n) / Number(total), `sieved ${to - lo + 1n} of ${total}`);
+  }
+  return combinePrimeBlockList(blocks);
+}
+
+const TWIN = [0n, 2n];
+
+const primes: Builtin[] = [
+  {
+    name: 'ledger', area: 'primes', minArgs: 1, maxArgs: 1,
+    signature: 'ledger(a..b) → record (from, to, primes, twins, maxgap, after)',
+    doc: 'Real-prime statistics of a..b: π(b) − π(a−1), twin pairs (p, p+2) inside the range, the largest gap and the prime before it. Stored ledger ranges are read.',
+    example: { source: 'ledger(1..100)', result: '(from: 1, to: 100, primes: 25, twins: 8, maxgap: 8, after: 89)' },
+    call: (a, c) => {
+      const r = argRange(a, 0, c, 'ledger');
+      const s = c.data && !r.primesOnly && r.lo >= 0n ? c.data.ledger(r.lo, r.hi + 1n) : null;
+      if (s && s.constellations['twin'] !== undefined) {
+        return SiftRecord.of([
+          ['from', r.lo], ['to', r.hi], ['primes', s.primeCount], ['twins', s.constellations['twin']!],
+          ['maxgap', BigInt(s.largestGap?.gap ?? 0)], ['after', s.largestGap?.start ?? 0n],
+        ]);
+      }
+      const b = sieveRange(r, { gaps: true, patterns: [TWIN] }, c, 'ledger');
+      const top = b.gaps!.records[b.gaps!.records.length - 1];
+      return SiftRecord.of([
+        ['from', r.lo], ['to', r.hi], ['primes', BigInt(b.primeCount)], ['twins', BigInt(b.patterns[0]!.count)],
+        ['maxgap', BigInt(top?.gap ?? 0)], ['after', top?.after ?? 0n],
+      ]);
+    },
+  },
+  {
+    name: 'primepi', area: 'primes', minArgs: 1, maxArgs: 1,
+    signature: 'primepi(x) → integer  (also π(x))', doc: 'π(x), the number of primes ≤ x (segmented sieve, x ≤ 10^15).',
+    example: { source: 'π(10^6)', result: '78498' },
+    call: (a, c) => primePi(a[0], c, 'primepi'),
+  },
+  {
+    name: 'π', area: 'primes', minArgs: 1, maxArgs: 1,
+    signature: 'π(x) → integer', doc: 'π(x), the number of primes ≤ x (same as primepi).',
+    example: { source: 'π(100)', result: '25' },
+    call: (a, c) => primePi(a[0], c, 'π'),
+  },
+  {
+    name: 'constellations', area: 'primes', minArgs: 2, maxArgs: 2,
+    signature: 'constellations(H, a..b) → record (pattern, count, first, last)',
+    doc: 'Occurrences of the admissible pattern H among real primes: n with n + h prime for all h ∈ H, a ≤ n and n + max H ≤ b.',
+    example: { source: 'constellations({0, 2, 6}, 1..1000)', result: '(pattern: {0, 2, 6}, count: 15, first: 5, last: 881)' },
+    call: (a, c) => {
+      const h = argTuple(a, 0, c, 'constellations');
+      const r = argRange(a, 1, c, 'constellations');
+      const st = sieveRange(r, { gaps: false, patterns: [h] }, { ...c, argSpans: c.argSpans.slice(1) }, 'constellations').patterns[0]!;
+      return SiftRecord.of([
+        ['pattern', new Tuple(st.pattern.map(BigInt))], ['count', BigInt(st.count)],
+        ['first', st.first ?? false], ['last', st.last ?? false],
+      ]);
+    },
+  },
+  {
+    name: 'records', area: 'primes', minArgs: 1, maxArgs: 1,
+    signature: 'records(a..b) → table (gap, after)',
+    doc: 'Record gaps between consecutive primes of a..b (each larger than every earlier one; from 2 on, the maximal prime gaps).',
+    example: { source: 'records(1..1000)', result: 'gap 1, 2, 4, 6, 8, 14, 18, 20 after 2, 3, 7, 23, 89, 113, 523, 887' },
+    call: (a, c) => {
+      const b = sieveRange(argRange(a, 0, c, 'records'), { gaps: true, patterns: [] }, c, 'records');
+      return new Table(['gap', 'after'], b.gaps!.records.map((g) => [BigInt(g.gap), g.after]));
+    },
+  },
+  {
+    name: 'primegaps', area: 'primes', minArgs: 1, maxArgs: 1,
+    signature: 'primegaps(a..b) → table (gap, count)',
+    doc: 'Histogram of the gaps between consecutive primes that both lie in a..b.',
+    example: { source: 'primegaps(1..30)', result: 'gap 1, 2, 4, 6 with count 1, 4, 3, 1' },
+    call: (a, c) => {
+      const b = sieveRange(argRange(a, 0, c, 'primegaps'), { gaps: true, patterns: [] }, c, 'primegaps');
+      return new Table(['gap', 'count'], [...b.gaps!.histogram].sort((x, y) => x[0] - y[0]).map(([g, n]) => [BigInt(g), BigInt(n)]));
+    },
+  },
+];
+
+function primePi(x: unknown, c: CallContext, fn: string): bigint {
+  if (typeof x !== 'bigint') throw domainError(`${fn}: x must be an integer`, c.argSpans[0]);
+  if (x < 2n) return 0n;
+  return BigInt(sieveRange(new IntRange(0n, x, false), { gaps: false, patterns: [] }, c, fn).primeCount);
+}
+
+defineBuiltins(primes);
