@@ -1,1 +1,5 @@
-export {};
+// Exact counts at any wheel level: occurrences of admissible tuples, consecutive gaps and gap
+// patterns by inclusion–exclusion, and their closed forms.
+export * from './occurrences';
+export * from './closed-form';
+export * from './enumerated';

@@ -6,3 +6,4 @@ export * from './scan';
 export * from './chunk';
 export * from './recursion';
 export * from './level';
+export * from './pair-recursion';

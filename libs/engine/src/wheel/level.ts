@@ -2,6 +2,7 @@ import { limitError } from '../errors';
 import { combineWheelChunks, planWheelChunks, runWheelChunk, type WheelChunkTally } from './chunk';
 import { MAX_MEMORY_LEVEL, wheelGaps } from './level-gaps';
 import { checkLevel, previousPrime, primorial, primorialTotient } from './primorial';
+import { nextPairTally } from './pair-recursion';
 import { nextHistogram } from './recursion';
 import { cycleHistogramAndPairSums, scanGapCycle } from './scan';
 import { histogramFromDense, histogramMaxGap, pairSums, patternsFromDense, type GapHistogram, type PatternTally } from './tally';
@@ -63,20 +64,49 @@ function shorterPatterns(t: WheelChunkTally): Map<number, PatternTally> {
 }
 
 /**
- * Consecutive pair sums T2_P(g) of level P (P ≤ 23 by scanning the cycle, deeper by streaming).
+ * Tally of consecutive gap quadruples of level P over one period: scanned for P ≤ 23, streamed over
+ * 23# beyond (29#: about 10^9 steps).
+ * @throws EngineError(limit) when streaming would exceed `maxSteps`.
+ */
+export function levelQuadTally(P: number, maxSteps = DEFAULT_STREAM_STEPS): PatternTally {
+  if (P <= MAX_MEMORY_LEVEL) return scanGapCycle(wheelGaps(P), [4]).patterns.get(4)!;
+  const t = streamLevel(P, 4, maxSteps, 40);
+  return patternsFromDense(t.patterns!, 4, t.radix + 1, t.radix);
+}
+
+/**
+ * Ordered tally of consecutive gap pairs of level P: scanned for P ≤ 23; deeper by
+ * {@link nextPairTally} from the previous level's quadruples (scanned or streamed), or by streaming
+ * P itself when that recursion's condition fails.
+ * @throws EngineError(limit) when streaming would exceed `maxSteps`.
+ */
+export function levelPairTally(P: number, maxSteps = DEFAULT_STREAM_STEPS): PatternTally {
+  checkLevel(P, 41);
+  if (P <= MAX_MEMORY_LEVEL) return scanGapCycle(wheelGaps(P), [2]).patterns.get(2)!;
+  const Pp = previousPrime(P);
+  const quads = levelQuadTally(Pp, maxSteps);
+  let maxPrev = 0;
+  for (const key of quads.keys()) for (const g of key.split(',')) maxPrev = Math.max(maxPrev, Number(g));
+  if (maxPrev < 2 * P) return nextPairTally(quads, P);
+  const t = streamLevel(P, 2, maxSteps);
+  return patternsFromDense(t.patterns!, 2, t.radix + 1, t.radix);
+}
+
+/**
+ * Consecutive pair sums T2_P(g) of level P (see {@link levelPairTally}; a fast dense scan for P ≤ 23).
  * @throws EngineError(limit) when streaming would exceed `maxSteps`.
  */
 export function levelPairSums(P: number, maxSteps = DEFAULT_STREAM_STEPS): GapHistogram {
   if (P <= MAX_MEMORY_LEVEL) return cycleHistogramAndPairSums(wheelGaps(P)).pairSums;
-  const t = streamLevel(P, 2, maxSteps);
-  return pairSums(patternsFromDense(t.patterns!, 2, t.radix + 1, t.radix));
+  return pairSums(levelPairTally(P, maxSteps));
 }
 
 /**
  * Gap histogram of wheel level p (one period). Levels ≤ 23 by enumeration; deeper levels by the
- * recursion {@link nextHistogram} with the previous level's pair sums (scanned or streamed), or by
- * streaming level p itself when the recursion's condition fails. 29# takes one scan of 23#;
- * 31# streams 29# (about 10^9 steps); 37# needs the parallel driver (`@cribra/engine/node`).
+ * recursion {@link nextHistogram} with the previous level's pair sums ({@link levelPairSums}), or
+ * by streaming level p itself when the recursion's condition fails. 29# takes one scan of 23#;
+ * 31# a scan of the quadruples of 23#; 37# streams the quadruples of 29# (about 10^9 steps; the
+ * parallel driver in `@cribra/engine/node` shares them between worker threads).
  * @throws EngineError(input) when p is not a prime; EngineError(limit) when the work would exceed
  *   `maxSteps` streamed steps (default {@link DEFAULT_STREAM_STEPS}).
  */
