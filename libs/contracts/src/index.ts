@@ -3,3 +3,4 @@ export * from './error';
 export * from './auth';
 export * from './notebooks';
 export * from './queue';
+export * from './review';
