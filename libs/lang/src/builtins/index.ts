@@ -3,3 +3,4 @@ import './core';
 import './tuples';
 import './wheel';
 import './primes';
+import './counts';

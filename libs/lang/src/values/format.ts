@@ -28,7 +28,7 @@ export function formatValue(v: Value, digits?: number | null, nested = false): s
   if (v instanceof IntRange) return `${v.primesOnly ? 'primes ' : ''}${v.lo}..${v.hi}`;
   if (Array.isArray(v)) return `[${list(v.map((x) => formatValue(x, digits, true)))}]`;
   if (v instanceof SiftRecord) return `(${[...v.fields].map(([k, x]) => `${k}: ${formatValue(x, digits, true)}`).join(', ')})`;
-  if (v instanceof Table) return formatTable(v, digits);
+  if (v instanceof Table) return nested ? `table(${v.columns.join(', ')}; ${v.rows.length} row${v.rows.length === 1 ? '' : 's'})` : formatTable(v, digits);
   if (v instanceof UserFn) return `${v.name}(${v.params.join(', ')})`;
   return String(v);
 }
