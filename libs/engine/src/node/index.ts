@@ -1,3 +1,3 @@
 // Node-only entry (`@cribra/engine/node`): parallel drivers over worker_threads.
 // The pure entry (`@cribra/engine`) must stay loadable in a browser.
-export {};
+export * from './sieve-parallel';

@@ -1,10 +1,16 @@
 import { isSmallPrime } from '../primes/small-primes';
 import type { CompiledPattern } from './pattern';
 import { PRESIEVE_PERIOD, presievePattern } from './presieve';
-import { RESIDUES, popcount32 } from './wheel30';
+import { wordIndex, wordPattern, type WordPattern } from './presieve-words';
+import { RESIDUES, RESIDUE_BIT, popcount32 } from './wheel30';
+
+/** Bytes of one piece sieved by the small primes at a time (the L1 data cache). */
+const L1_BYTES = 1 << 15;
+/** Primes below this bound have several hits per L1 piece and are sieved piece by piece. */
+const SMALL_PRIME_BOUND = 1 << 13;
 
 /** Bytes per sieve segment (each byte spans 30 integers); sized for the L2 cache. */
-export const SEGMENT_BYTES = 1 << 17;
+export const SEGMENT_BYTES = 1 << 20;
 
 /** Statistics of one constellation pattern over a block (numbers; −1 for "none"). */
 export interface CorePatternResult {
@@ -40,7 +46,7 @@ const WORD_BIT_VALUE: Int32Array = (() => {
 /**
  * Segmented sieve of Eratosthenes on the mod-30 wheel over [a, b] (safe integers, 0 ≤ a ≤ b,
  * b < 2^53): one byte per 30 integers, segments of SEGMENT_BYTES, the multiples of 7…19 removed by
- * copying a pre-sieved pattern, then every sieving prime 23 ≤ p ≤ √b crossed off per wheel residue
+ * copying a pre-sieved pattern, those of 23 … 43 by AND-ing word patterns, then every sieving prime 47 ≤ p ≤ √b crossed off per wheel residue
  * class (eight progressions of step p bytes, unrolled). `sieving` must hold every prime ≤ √b in
  * increasing order (more are ignored). Counts primes, the given patterns (n ≥ a, n + max H ≤ b) and,
  * when asked, the gap histogram and the record gaps.
@@ -112,13 +118,14 @@ export function sieveCore(
 
   // Sieving primes from 23 up: next byte of each of the 8 residue-class progressions, and its mask.
   let firstSieving = 0;
-  while (firstSieving < sieving.length && sieving[firstSieving]! < 23) firstSieving++;
+  while (firstSieving < sieving.length && sieving[firstSieving]! <= LAST_PATTERN_PRIME) firstSieving++;
   let lastSieving = firstSieving;
   while (lastSieving < sieving.length && sieving[lastSieving]! * sieving[lastSieving]! <= b) lastSieving++;
   const nSieving = lastSieving - firstSieving;
   const next = new Int32Array(8 * nSieving);
   const masks = new Uint8Array(8 * nSieving);
   let active = 0;
+  let small = 0;
 
   let done = 0;
   while (done < totalBytes) {
@@ -128,7 +135,12 @@ export function sieveCore(
     const off = (base / 30) % PRESIEVE_PERIOD;
     buf.set(pattern.subarray(off, off + L), 0);
     buf.fill(0, L, L + 8);
-    if (base === 0) buf[0] = (buf[0]! & 0xfe) | 0x3e; // 1 is not prime; 7, 11, 13, 17, 19 are.
+    applyWordPatterns(u32, (L + 3) >> 2, base / 30);
+    if (base < 30 * PATTERN_PRIMES_BYTES) {
+      // The patterns removed 7 … 43 with their multiples: put them back; 1 is not prime.
+      if (base === 0) buf[0]! &= 0xfe;
+      for (const q of PATTERN_PRIMES) if (q >= base) buf[(q - base - (q % 30)) / 30]! |= 1 << RESIDUE_BIT[q % 30]!;
+    }
 
     // Activate the primes whose square falls before the end of this segment.
     const end = base + 30 * L;
@@ -148,7 +160,13 @@ export function sieveCore(
       }
       active++;
     }
-    crossOff(buf, next, masks, sieving, firstSieving, active, len, L);
+    // Primes with many hits per segment are crossed off one L1-sized piece at a time.
+    while (small < active && sieving[firstSieving + small]! < SMALL_PRIME_BOUND) small++;
+    for (let piece = L1_BYTES; piece < len; piece += L1_BYTES) crossRange(buf, next, masks, sieving, firstSieving, 0, small, piece, 0);
+    crossRange(buf, next, masks, sieving, firstSieving, 0, small, len, 0);
+    crossRange(buf, next, masks, sieving, firstSieving, small, active, len, 0);
+    if (L > len) crossLookahead(buf, next, masks, sieving, firstSieving, active, len, L);
+    for (let i = 0, n = active << 3; i < n; i++) next[i] -= len;
     clearOutside(buf, base, L, a, b);
 
     // Primes of this segment: start bytes [0, len).
@@ -196,8 +214,71 @@ export function sieveCore(
   }
 }
 
-/** Crosses off the multiples of the active sieving primes in bytes [0, L); positions restart at len. */
-function crossOff(
+// Primes 23 … 43 are removed by AND-ing word patterns (cheaper than crossing them off).
+const WORD_PATTERNS: readonly WordPattern[] = [wordPattern([23, 29, 31]), wordPattern([37, 41, 43])];
+const LAST_PATTERN_PRIME = 43;
+const PATTERN_PRIMES: readonly number[] = [7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43];
+const PATTERN_PRIMES_BYTES = 2;
+
+/** ANDs the word patterns into the first `words` words of a segment starting at sieve byte K0. */
+function applyWordPatterns(u32: Uint32Array, words: number, K0: number): void {
+  const [A, B] = WORD_PATTERNS as [WordPattern, WordPattern];
+  const wa = A.words, pa = A.period, wb = B.words, pb = B.period;
+  let ta = wordIndex(A, K0);
+  let tb = wordIndex(B, K0);
+  for (let w = 0; w < words; w++) {
+    u32[w]! &= wa[ta]! & wb[tb]!;
+    if (++ta === pa) ta = 0;
+    if (++tb === pb) tb = 0;
+  }
+}
+
+/**
+ * Crosses off, for the sieving primes i0 ≤ i < i1, every multiple whose byte lies before `end`;
+ * each progression is left at its first byte ≥ end, minus `shift` (the segment length when the
+ * segment is finished, so that positions become relative to the next segment).
+ */
+function crossRange(
+  buf: Uint8Array,
+  next: Int32Array,
+  masks: Uint8Array,
+  sieving: Uint32Array,
+  first: number,
+  i0: number,
+  i1: number,
+  end: number,
+  shift: number,
+): void {
+  for (let i = i0; i < i1; i++) {
+    const p = sieving[first + i]!;
+    const o = i << 3;
+    let j0 = next[o]!, j1 = next[o + 1]!, j2 = next[o + 2]!, j3 = next[o + 3]!;
+    let j4 = next[o + 4]!, j5 = next[o + 5]!, j6 = next[o + 6]!, j7 = next[o + 7]!;
+    const m0 = masks[o]!, m1 = masks[o + 1]!, m2 = masks[o + 2]!, m3 = masks[o + 3]!;
+    const m4 = masks[o + 4]!, m5 = masks[o + 5]!, m6 = masks[o + 6]!, m7 = masks[o + 7]!;
+    // The eight progressions stay within p bytes of each other: step them together.
+    let jmax = Math.max(j0, j1, j2, j3, j4, j5, j6, j7);
+    while (jmax < end) {
+      buf[j0] &= m0; buf[j1] &= m1; buf[j2] &= m2; buf[j3] &= m3;
+      buf[j4] &= m4; buf[j5] &= m5; buf[j6] &= m6; buf[j7] &= m7;
+      j0 += p; j1 += p; j2 += p; j3 += p; j4 += p; j5 += p; j6 += p; j7 += p;
+      jmax += p;
+    }
+    while (j0 < end) { buf[j0] &= m0; j0 += p; }
+    while (j1 < end) { buf[j1] &= m1; j1 += p; }
+    while (j2 < end) { buf[j2] &= m2; j2 += p; }
+    while (j3 < end) { buf[j3] &= m3; j3 += p; }
+    while (j4 < end) { buf[j4] &= m4; j4 += p; }
+    while (j5 < end) { buf[j5] &= m5; j5 += p; }
+    while (j6 < end) { buf[j6] &= m6; j6 += p; }
+    while (j7 < end) { buf[j7] &= m7; j7 += p; }
+    next[o] = j0 - shift; next[o + 1] = j1 - shift; next[o + 2] = j2 - shift; next[o + 3] = j3 - shift;
+    next[o + 4] = j4 - shift; next[o + 5] = j5 - shift; next[o + 6] = j6 - shift; next[o + 7] = j7 - shift;
+  }
+}
+
+/** Crosses off the look-ahead bytes [len, L) (they are sieved again as part of the next segment). */
+function crossLookahead(
   buf: Uint8Array,
   next: Int32Array,
   masks: Uint8Array,
@@ -210,34 +291,9 @@ function crossOff(
   for (let i = 0; i < active; i++) {
     const p = sieving[first + i]!;
     const o = i << 3;
-    let j0 = next[o]!, j1 = next[o + 1]!, j2 = next[o + 2]!, j3 = next[o + 3]!;
-    let j4 = next[o + 4]!, j5 = next[o + 5]!, j6 = next[o + 6]!, j7 = next[o + 7]!;
-    const m0 = masks[o]!, m1 = masks[o + 1]!, m2 = masks[o + 2]!, m3 = masks[o + 3]!;
-    const m4 = masks[o + 4]!, m5 = masks[o + 5]!, m6 = masks[o + 6]!, m7 = masks[o + 7]!;
-    // The eight progressions stay within p bytes of each other: step them together.
-    let jmax = Math.max(j0, j1, j2, j3, j4, j5, j6, j7);
-    while (jmax < len) {
-      buf[j0] &= m0; buf[j1] &= m1; buf[j2] &= m2; buf[j3] &= m3;
-      buf[j4] &= m4; buf[j5] &= m5; buf[j6] &= m6; buf[j7] &= m7;
-      j0 += p; j1 += p; j2 += p; j3 += p; j4 += p; j5 += p; j6 += p; j7 += p;
-      jmax += p;
-    }
-    while (j0 < len) { buf[j0] &= m0; j0 += p; }
-    while (j1 < len) { buf[j1] &= m1; j1 += p; }
-    while (j2 < len) { buf[j2] &= m2; j2 += p; }
-    while (j3 < len) { buf[j3] &= m3; j3 += p; }
-    while (j4 < len) { buf[j4] &= m4; j4 += p; }
-    while (j5 < len) { buf[j5] &= m5; j5 += p; }
-    while (j6 < len) { buf[j6] &= m6; j6 += p; }
-    while (j7 < len) { buf[j7] &= m7; j7 += p; }
-    next[o] = j0 - len; next[o + 1] = j1 - len; next[o + 2] = j2 - len; next[o + 3] = j3 - len;
-    next[o + 4] = j4 - len; next[o + 5] = j5 - len; next[o + 6] = j6 - len; next[o + 7] = j7 - len;
-    if (L > len) {
-      // The look-ahead bytes past the segment (re-sieved as part of the next segment).
-      for (let c = 0; c < 8; c++) {
-        const m = masks[o + c]!;
-        for (let j = next[o + c]! + len; j < L; j += p) buf[j] &= m;
-      }
+    for (let c = 0; c < 8; c++) {
+      const m = masks[o + c]!;
+      for (let j = next[o + c]!; j < L; j += p) buf[j] &= m;
     }
   }
 }

@@ -1,0 +1,107 @@
+import { existsSync } from 'node:fs';
+import { availableParallelism } from 'node:os';
+import { join } from 'node:path';
+import { Worker } from 'node:worker_threads';
+import { EngineError, inputError } from '../errors';
+import {
+  combinePrimeBlockList,
+  compilePattern,
+  parseSieveRange,
+  primeBlockFromJson,
+  sievePrimeBlock,
+  splitSieveRange,
+  type PrimeBlock,
+  type RangeEnd,
+  type SieveOptions,
+} from '../sieve';
+import type { SieveTask, SieveTaskReply } from './sieve-messages';
+
+/** Options of {@link sievePrimeBlockParallel}. */
+export interface ParallelSieveOptions extends SieveOptions {
+  /** Worker threads (default: all cores). 1 still uses one worker thread. */
+  readonly workers?: number;
+  /** Blocks the range is cut into (default: 8 per worker, fewer for short ranges). */
+  readonly blocks?: number;
+  /** Called after each finished block with the number done and the total. */
+  readonly onProgress?: (done: number, total: number) => void;
+}
+
+/** Ranges shorter than this are sieved in the calling thread (starting workers would cost more). */
+const IN_THREAD_BELOW = 20_000_000n;
+/** Smallest block handed to a worker. */
+const MIN_BLOCK = 10_000_000n;
+
+/**
+ * The path of the built worker file: next to this module in dist, or in dist when this module is
+ * run from source (tests load the engine from src; `tsc -b` builds dist first).
+ */
+export function sieveWorkerFile(): string {
+  const candidates = [join(__dirname, 'sieve-worker.js'), join(__dirname, '..', '..', 'dist', 'node', 'sieve-worker.js')];
+  const found = candidates.find((f) => existsSync(f));
+  if (!found) throw new EngineError('limit', `sieve worker not built (looked for ${candidates.join(', ')}); run tsc -b`);
+  return found;
+}
+
+/**
+ * {@link sievePrimeBlock} with the range cut into blocks that worker threads sieve in parallel; the
+ * block summaries are combined exactly (same result as one pass).
+ * @throws EngineError as {@link sievePrimeBlock}; EngineError(input) for a bad worker or block count.
+ */
+export async function sievePrimeBlockParallel(
+  from: RangeEnd,
+  to: RangeEnd,
+  options: ParallelSieveOptions = {},
+): Promise<PrimeBlock> {
+  const range = parseSieveRange(from, to);
+  const patterns = (options.patterns ?? []).map((p) => [...compilePattern(p).offsets]);
+  const gaps = options.gaps ?? false;
+  const workers = options.workers ?? availableParallelism();
+  if (!Number.isSafeInteger(workers) || workers < 1 || workers > 256) {
+    throw inputError(`worker count ${workers} is not an integer from 1 to 256`);
+  }
+  const length = range.to - range.from + 1n;
+  if (length < IN_THREAD_BELOW && options.blocks === undefined) {
+    const block = sievePrimeBlock(range.from, range.to, { gaps, patterns });
+    options.onProgress?.(1, 1);
+    return block;
+  }
+  let parts = options.blocks ?? workers * 8;
+  if (!Number.isSafeInteger(parts) || parts < 1) throw inputError(`block count ${parts} is not a positive integer`);
+  if (options.blocks === undefined && BigInt(parts) * MIN_BLOCK > length) parts = Math.max(1, Number(length / MIN_BLOCK));
+  const ranges = splitSieveRange(range.from, range.to, parts);
+  const results: PrimeBlock[] = new Array(ranges.length);
+  const file = sieveWorkerFile();
+  const pool = Array.from({ length: Math.min(workers, ranges.length) }, () => new Worker(file));
+  let nextTask = 0;
+  let done = 0;
+  try {
+    await Promise.all(
+      pool.map(
+        (worker) =>
+          new Promise<void>((resolve, reject) => {
+            const send = (): void => {
+              if (nextTask >= ranges.length) return resolve();
+              const id = nextTask++;
+              const r = ranges[id]!;
+              const task: SieveTask = { id, from: r.from.toString(), to: r.to.toString(), gaps, patterns };
+              worker.postMessage(task);
+            };
+            worker.on('message', (reply: SieveTaskReply) => {
+              if ('error' in reply) return reject(new EngineError(reply.error.kind, reply.error.message));
+              results[reply.id] = primeBlockFromJson(reply.block);
+              options.onProgress?.(++done, ranges.length);
+              send();
+            });
+            worker.on('error', reject);
+            worker.on('exit', (code) => {
+              if (code !== 0) reject(new EngineError('limit', `sieve worker stopped with exit code ${code}`));
+            });
+            send();
+          }),
+      ),
+    );
+  } finally {
+    await Promise.all(pool.map((w) => w.terminate()));
+  }
+  return combinePrimeBlockList(results);
+}

@@ -1,0 +1,17 @@
+// Worker thread of the parallel sieve: sieves the blocks it is sent and answers with their JSON summaries.
+import { parentPort } from 'node:worker_threads';
+import { EngineError } from '../errors';
+import { primeBlockToJson, sievePrimeBlock } from '../sieve';
+import type { SieveTask, SieveTaskReply } from './sieve-messages';
+
+parentPort?.on('message', (task: SieveTask) => {
+  let reply: SieveTaskReply;
+  try {
+    const block = sievePrimeBlock(task.from, task.to, { gaps: task.gaps, patterns: task.patterns });
+    reply = { id: task.id, block: primeBlockToJson(block) };
+  } catch (e) {
+    const kind = e instanceof EngineError ? e.kind : 'limit';
+    reply = { id: task.id, error: { kind, message: e instanceof Error ? e.message : String(e) } };
+  }
+  parentPort!.postMessage(reply);
+});

@@ -1,0 +1,41 @@
+import { RESIDUES } from './wheel30';
+
+/**
+ * A word pattern for a few primes: word t packs sieve bytes 4t … 4t+3 (mod the period) where bit i
+ * of byte K is clear when 30K + RESIDUES[i] is divisible by one of the primes. The period P is odd,
+ * so stepping t by 1 steps the byte by 4 and one copy serves every alignment.
+ */
+export interface WordPattern {
+  readonly period: number;
+  readonly words: Uint32Array;
+  /** The multiplicative inverse of 4 modulo the period. */
+  readonly inverse4: number;
+}
+
+/** Builds the word pattern of the given odd primes (> 5). */
+export function wordPattern(primes: readonly number[]): WordPattern {
+  const period = primes.reduce((x, p) => x * p, 1);
+  const bytes = new Uint8Array(period).fill(0xff);
+  for (const p of primes) {
+    for (let i = 0; i < 8; i++) {
+      let k0 = 0;
+      while ((30 * k0 + RESIDUES[i]!) % p !== 0) k0++;
+      const clear = ~(1 << i) & 0xff;
+      for (let k = k0; k < period; k += p) bytes[k]! &= clear;
+    }
+  }
+  const words = new Uint32Array(period);
+  for (let t = 0; t < period; t++) {
+    const k = (4 * t) % period;
+    words[t] =
+      (bytes[k]! | (bytes[(k + 1) % period]! << 8) | (bytes[(k + 2) % period]! << 16) | (bytes[(k + 3) % period]! << 24)) >>> 0;
+  }
+  let inverse4 = 1;
+  while ((4 * inverse4) % period !== 1) inverse4++;
+  return { period, words, inverse4 };
+}
+
+/** Index t of the pattern word that starts at sieve byte K (a safe integer). */
+export function wordIndex(pattern: WordPattern, byteIndex: number): number {
+  return ((byteIndex % pattern.period) * pattern.inverse4) % pattern.period;
+}
