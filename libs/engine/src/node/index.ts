@@ -1,3 +1,4 @@
 // Node-only entry (`@cribra/engine/node`): parallel drivers over worker_threads.
 // The pure entry (`@cribra/engine`) must stay loadable in a browser.
+export * from './wheel-pool';
 export * from './sieve-parallel';

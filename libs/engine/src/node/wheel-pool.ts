@@ -1,0 +1,119 @@
+import { availableParallelism } from 'node:os';
+import { join, resolve } from 'node:path';
+import { Worker } from 'node:worker_threads';
+import { EngineError, inputError, type EngineErrorKind } from '../errors';
+import { combineWheelChunks, planWheelChunks, type WheelChunkSpec, type WheelChunkTally } from '../wheel/chunk';
+import { MAX_MEMORY_LEVEL, wheelGaps } from '../wheel/level-gaps';
+import { gapHistogram, levelQuadTally } from '../wheel/level';
+import { nextPairTally } from '../wheel/pair-recursion';
+import { checkLevel, previousPrime } from '../wheel/primorial';
+import { nextHistogram } from '../wheel/recursion';
+import { histogramMaxGap, pairSums, patternsFromDense, type GapHistogram, type PatternTally } from '../wheel/tally';
+
+/** Options of the parallel wheel drivers. */
+export interface WheelPoolOptions {
+  /** worker threads (default: all cores) */
+  readonly workers?: number;
+  /** chunks per worker (default 8; more chunks balance better, each costs one message) */
+  readonly chunksPerWorker?: number;
+  /** called after each finished chunk */
+  readonly onProgress?: (done: number, total: number) => void;
+}
+
+// Workers run compiled JavaScript: from dist next to this file, or from the built dist when this
+// module is loaded from TypeScript source (vitest); the libs test setup builds dist first.
+function workerFile(): string {
+  return __filename.endsWith('.ts') ? resolve(__dirname, '../../dist/node/wheel-worker.js') : join(__dirname, 'wheel-worker.js');
+}
+
+/**
+ * Runs chunk specs (all over the same base level) on worker threads sharing the base gap cycle,
+ * and combines the partial tallies. Any worker error rejects with an EngineError naming the chunk.
+ * @throws EngineError(input) for an empty or mixed list of specs.
+ */
+export async function runWheelChunksParallel(specs: readonly WheelChunkSpec[], options: WheelPoolOptions = {}): Promise<WheelChunkTally> {
+  if (specs.length === 0) throw inputError('no chunks to run');
+  const base = specs[0]!.base;
+  if (specs.some((s) => s.base !== base)) throw inputError('all chunks of one run must share the base level');
+  const gaps = wheelGaps(base);
+  const shared = new SharedArrayBuffer(gaps.length);
+  new Uint8Array(shared).set(gaps);
+  const n = Math.max(1, Math.min(options.workers ?? availableParallelism(), specs.length));
+  const workers = Array.from({ length: n }, () => new Worker(workerFile(), { workerData: { base, gaps: shared } }));
+  const parts: WheelChunkTally[] = [];
+  let next = 0;
+  let done = 0;
+  try {
+    await Promise.all(
+      workers.map(
+        (w) =>
+          new Promise<void>((resolveAll, reject) => {
+            const send = () => {
+              if (next >= specs.length) return resolveAll();
+              const id = next++;
+              w.postMessage({ id, spec: specs[id] });
+            };
+            w.on('message', (msg: { id: number; tally?: WheelChunkTally; error?: { message: string; kind: EngineErrorKind | null } }) => {
+              if (msg.error) {
+                const s = specs[msg.id]!;
+                const text = `chunk ${s.target}# copies [${s.copyFrom}, ${s.copyTo}): ${msg.error.message}`;
+                return reject(new EngineError(msg.error.kind ?? 'limit', text));
+              }
+              parts.push(msg.tally!);
+              options.onProgress?.(++done, specs.length);
+              send();
+            });
+            w.on('error', reject);
+            send();
+          }),
+      ),
+    );
+  } finally {
+    await Promise.all(workers.map((w) => w.terminate()));
+  }
+  return combineWheelChunks(parts);
+}
+
+/**
+ * Streams level `target` (≤ 41) over the in-memory level 23 on worker threads (see {@link planWheelChunks}).
+ * @throws EngineError(input) for bad levels.
+ */
+export async function streamLevelParallel(
+  target: number,
+  patternLength: 1 | 2 | 3 | 4,
+  options: WheelPoolOptions & { radix?: number } = {},
+): Promise<WheelChunkTally> {
+  checkLevel(target, 41);
+  const base = Math.min(previousPrime(target), MAX_MEMORY_LEVEL);
+  const workers = options.workers ?? availableParallelism();
+  const specs = planWheelChunks(base, target, workers * (options.chunksPerWorker ?? 8), patternLength, options.radix);
+  return runWheelChunksParallel(specs, options);
+}
+
+/**
+ * Tally of consecutive gap quadruples of level P over one period, streamed on worker threads for
+ * P > 23 (scanned in memory otherwise). The tally radix is taken from P's histogram (largest gap).
+ */
+export async function levelQuadTallyParallel(P: number, options: WheelPoolOptions = {}): Promise<PatternTally> {
+  if (P <= MAX_MEMORY_LEVEL) return levelQuadTally(P);
+  const radix = histogramMaxGap(gapHistogram(P)) / 2 + 1;
+  const t = await streamLevelParallel(P, 4, { ...options, radix });
+  return patternsFromDense(t.patterns!, 4, t.radix + 1, t.radix);
+}
+
+/**
+ * Gap histogram of wheel level p ≤ 41 with the streaming shared between worker threads: levels ≤ 31
+ * as {@link gapHistogram} (no streaming needed); deeper ones by hist_p = (p−2)·hist_P + T2_P with the
+ * pair sums T2_P from {@link nextPairTally} over the quadruples of the level before P, streamed in
+ * parallel (37#: quadruples of 29#, about 10^9 steps).
+ * @throws EngineError(input) when p is not a prime; EngineError(limit) when p > 41;
+ *   EngineError(domain) when a recursion condition fails.
+ */
+export async function gapHistogramParallel(p: number, options: WheelPoolOptions = {}): Promise<GapHistogram> {
+  checkLevel(p, 41);
+  if (p <= 31) return gapHistogram(p);
+  const P = previousPrime(p);
+  const prev = await gapHistogramParallel(P, options);
+  const quads = await levelQuadTallyParallel(previousPrime(P), options);
+  return nextHistogram(prev, pairSums(nextPairTally(quads, P)), p);
+}
