@@ -18,7 +18,21 @@ export type NotebookAction =
   | 'uploads.create'
   | 'uploads.delete'
   | 'export'
-  | 'audit.read';
+  | 'audit.read'
+  // Review and collaboration (invitations, comments, reviews, locks).
+  | 'invitations.read'
+  | 'invitations.manage'
+  | 'comments.read'
+  | 'comments.write'
+  | 'comments.resolve'
+  | 'review.read'
+  | 'review.request'
+  | 'review.verify'
+  | 'review.decide'
+  | 'lock.create'
+  | 'lock.read'
+  | 'lock.check'
+  | 'notebook.duplicate';
 
 /** The acting person as the policy needs it. */
 export interface Actor {
@@ -26,8 +40,11 @@ export interface Actor {
   siteRole: 'admin' | 'member';
 }
 
-/** Roles allowed per action (site admins may do everything). */
-const MATRIX: Record<NotebookAction, readonly MemberRole[]> = {
+/**
+ * Roles allowed per action (site admins may do everything except ADMIN_EXCLUDED). The table
+ * docs/permissions.md shows and the permission tests iterate over.
+ */
+export const MATRIX: Record<NotebookAction, readonly MemberRole[]> = {
   'notebook.read': ['owner', 'editor', 'reviewer', 'viewer'],
   'notebook.update': ['owner', 'editor'],
   'notebook.delete': ['owner'],
@@ -41,10 +58,28 @@ const MATRIX: Record<NotebookAction, readonly MemberRole[]> = {
   'uploads.delete': ['owner', 'editor'],
   export: ['owner', 'editor', 'reviewer', 'viewer'],
   'audit.read': ['owner'],
+  'invitations.read': ['owner'],
+  'invitations.manage': ['owner'],
+  'comments.read': ['owner', 'editor', 'reviewer', 'viewer'],
+  // Writing a comment, replying, editing one's own (authorship checked by assertAuthor).
+  'comments.write': ['owner', 'editor', 'reviewer'],
+  'comments.resolve': ['owner', 'editor', 'reviewer'],
+  'review.read': ['owner', 'editor', 'reviewer', 'viewer'],
+  'review.request': ['owner'],
+  'review.verify': ['owner', 'editor', 'reviewer'],
+  'review.decide': ['reviewer'],
+  'lock.create': ['owner'],
+  'lock.read': ['owner', 'editor', 'reviewer', 'viewer'],
+  // Anyone with access can check a lock record by re-running it.
+  'lock.check': ['owner', 'editor', 'reviewer', 'viewer'],
+  'notebook.duplicate': ['owner', 'editor', 'reviewer', 'viewer'],
 };
 
+/** Site admins may not do these unless they hold the role: a sign-off is a reviewer's own word. */
+export const ADMIN_EXCLUDED: ReadonlySet<NotebookAction> = new Set<NotebookAction>(['review.decide']);
+
 /** Actions that change a notebook's content: refused on a locked notebook, whoever asks. */
-const CHANGES_CONTENT: ReadonlySet<NotebookAction> = new Set([
+export const CHANGES_CONTENT: ReadonlySet<NotebookAction> = new Set<NotebookAction>([
   'notebook.update',
   'notebook.delete',
   'cells.edit',
@@ -52,6 +87,12 @@ const CHANGES_CONTENT: ReadonlySet<NotebookAction> = new Set([
   'runs.cancel',
   'uploads.create',
   'uploads.delete',
+  'comments.write',
+  'comments.resolve',
+  'review.request',
+  'review.verify',
+  'review.decide',
+  'lock.create',
 ]);
 
 export interface Authorized {
@@ -73,7 +114,7 @@ export class NotebookPolicyService {
   /** Pure decision from the actor's role and the notebook's status. */
   can(actor: Actor, action: NotebookAction, notebook: { status: NotebookStatus }, role: MemberRole | null): boolean {
     if (notebook.status === 'locked' && CHANGES_CONTENT.has(action)) return false;
-    if (actor.siteRole === 'admin') return true;
+    if (actor.siteRole === 'admin' && !ADMIN_EXCLUDED.has(action)) return true;
     return role !== null && MATRIX[action].includes(role);
   }
 
@@ -88,7 +129,7 @@ export class NotebookPolicyService {
     if (!notebook) throw new NotFoundException('Notebook not found');
     const role = await this.roleOf(actor.id, notebookId);
     if (this.can(actor, action, notebook, role)) return { notebook, role };
-    if (role === null && actor.siteRole !== 'admin') {
+    if (role === null && (actor.siteRole !== 'admin' || ADMIN_EXCLUDED.has(action))) {
       throw new ForbiddenException('You are not a member of this notebook');
     }
     if (notebook.status === 'locked' && CHANGES_CONTENT.has(action)) {
@@ -96,5 +137,10 @@ export class NotebookPolicyService {
       throw new ConflictException({ message: 'This notebook is locked; duplicate it to make changes', details });
     }
     throw new ForbiddenException(`A ${role} of this notebook may not do this (${action})`);
+  }
+
+  /** Only the author edits a comment (after `comments.write` was authorized). */
+  assertAuthor(actor: Actor, authorId: string): void {
+    if (actor.id !== authorId) throw new ForbiddenException('Only its author can edit a comment');
   }
 }
