@@ -8,6 +8,7 @@ const here = (p: string) => fileURLToPath(new URL(p, import.meta.url));
 const alias = {
   '@cribra/engine/node': here('./libs/engine/src/node/index.ts'),
   '@cribra/engine': here('./libs/engine/src/index.ts'),
+  '@cribra/lang/node': here('./libs/lang/src/node/index.ts'),
   '@cribra/lang': here('./libs/lang/src/index.ts'),
   '@cribra/contracts': here('./libs/contracts/src/index.ts'),
 };

@@ -13,3 +13,8 @@ export { jsonToNumber } from './values/to-json';
 export * from './provider/types';
 export { MemoryDataProvider, asyncProvider } from './provider/memory';
 export { allBuiltins, type Builtin, type BuiltinArea } from './builtins/registry';
+export * from './service';
+export {
+  parseNotebookFile, formatNotebookFile,
+  type NotebookFile, type NotebookFileCell, type NotebookCellKind, type ParsedNotebookFile, type NotebookFileError,
+} from './notebook/file';

@@ -46,7 +46,7 @@ export class SiftPool {
     const heap = resolveLimits(this.defaults).maxHeapMb;
     const threads = Math.max(1, options.threads ?? availableParallelism());
     this.piscina = new Piscina({
-      filename: path.resolve(__dirname, 'worker.js'),
+      filename: workerFile(),
       minThreads: 0,
       maxThreads: threads,
       idleTimeout: options.idleTimeoutMs ?? 30_000,
@@ -90,6 +90,11 @@ export class SiftPool {
   async close(): Promise<void> {
     await this.piscina.destroy();
   }
+}
+
+/** The built worker (dist/node/worker.js), also when this module runs from source under a test runner. */
+function workerFile(): string {
+  return __filename.endsWith('.ts') ? path.resolve(__dirname, '../../dist/node/worker.js') : path.resolve(__dirname, 'worker.js');
 }
 
 const emptyProvider: DataProvider = {

@@ -131,7 +131,7 @@ export class Interpreter {
 
   private show(v: Value, label: string | null, digits: number | null, span: SourceSpan): void {
     if (digits !== null && (!Number.isInteger(digits) || digits < 1 || digits > 1000)) throw domainError('digits must be between 1 and 1000', span);
-    if (typeof v === 'string') return this.emit({ kind: 'text', text: v }, span);
+    if (typeof v === 'string' && label === null) return this.emit({ kind: 'text', text: v }, span);
     if (v instanceof UserFn) throw typeError(`'${v.name}' is a function; call it to show a value`, span);
     if (v instanceof Table) {
       return this.emit({ kind: 'table', label, columns: [...v.columns], rows: v.rows.map((r) => r.map(valueToJson)) }, span);

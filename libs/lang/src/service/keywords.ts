@@ -1,0 +1,30 @@
+/** One-line help for the keywords and operators of Sift (completion and hover). */
+export const KEYWORD_DOCS: Record<string, { signature: string; doc: string }> = {
+  let: { signature: 'let name = expression  |  let f(x, y) = expression', doc: 'Binds a name (or a function) for the rest of the cell.' },
+  claim: { signature: 'claim [label:] relation over x ∈ domain, …', doc: 'A conjecture checked on every case of a bounded domain: holds (with what was checked) or fails (first counterexample).' },
+  over: { signature: '… over x ∈ domain, y ∈ domain, condition', doc: 'The bounded cases of a claim; conditions leave cases out.' },
+  show: { signature: 'show expression [as "label"] [digits n]', doc: 'Shows a value with its exact digits (or a table).' },
+  draw: { signature: 'draw line|scatter|bar T: x -> y1, y2 [log x|y|xy] [as "title"]', doc: 'A chart of table columns.' },
+  as: { signature: 'as "text"', doc: 'Label of a shown value or title of a chart.' },
+  digits: { signature: 'digits n', doc: 'Significant digits for reals and rationals in show.' },
+  if: { signature: 'if condition then a else b', doc: 'Chooses a value.' },
+  then: { signature: 'if condition then a else b', doc: 'Chooses a value.' },
+  else: { signature: 'if condition then a else b', doc: 'Chooses a value.' },
+  and: { signature: 'a and b', doc: 'Both conditions (b is skipped when a is false).' },
+  or: { signature: 'a or b', doc: 'Either condition (b is skipped when a is true).' },
+  not: { signature: 'not a', doc: 'The opposite condition.' },
+  mod: { signature: 'a mod m', doc: 'The residue of a modulo m, in 0..|m|−1.' },
+  div: { signature: 'a div m', doc: '⌊a / m⌋ for integers.' },
+  primes: { signature: 'primes a..b', doc: 'The primes p with a ≤ p ≤ b (a prime range; ranges over wheel levels).' },
+  in: { signature: 'x in domain  (or x ∈ domain)', doc: 'Binds x to each element of a domain inside [...] or after over; elsewhere tests membership.' },
+  sum: { signature: '∑[x ∈ domain, …] term  |  sum(series)', doc: 'Exact sum over a bounded domain (the term extends over a product, as in ∑ 1/n).' },
+  prod: { signature: '∏[x ∈ domain, …] factor  |  prod(series)', doc: 'Exact product over a bounded domain.' },
+  all: { signature: '∀[x ∈ domain, …] condition  |  all(series)', doc: 'Whether the condition holds for every case.' },
+  any: { signature: '∃[x ∈ domain, …] condition  |  any(series)', doc: 'Whether the condition holds for some case.' },
+  table: { signature: 'table[x ∈ domain, …](col: value, …)  |  table(rows)', doc: 'A table with one row per case.' },
+  true: { signature: 'true', doc: 'The boolean true.' },
+  false: { signature: 'false', doc: 'The boolean false.' },
+  '#': { signature: '#[x ∈ domain, …] condition  |  n#', doc: 'Prefix: the number of cases where the condition holds. Postfix: the primorial n#.' },
+};
+
+export const KEYWORDS = Object.keys(KEYWORD_DOCS).filter((k) => /^[a-z]+$/.test(k));
