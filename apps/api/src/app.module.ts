@@ -20,6 +20,10 @@ import { LevelsModule } from './levels/levels.module';
 import { LedgerModule } from './ledger/ledger.module';
 import { UploadsModule } from './uploads/uploads.module';
 import { ExportsModule } from './exports/exports.module';
+import { InvitationsModule } from './invitations/invitations.module';
+import { CommentsModule } from './comments/comments.module';
+import { ReviewsModule } from './reviews/reviews.module';
+import { LocksModule } from './locks/locks.module';
 
 @Module({
   imports: [
@@ -45,6 +49,10 @@ import { ExportsModule } from './exports/exports.module';
     LedgerModule,
     UploadsModule,
     ExportsModule,
+    InvitationsModule,
+    CommentsModule,
+    ReviewsModule,
+    LocksModule,
   ],
   providers: [SessionStoreService],
 })

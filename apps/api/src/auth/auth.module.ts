@@ -8,7 +8,9 @@ import { MailModule } from '../mail/mail.module';
 import { UsersModule } from '../users/users.module';
 import { AuthController } from './auth.controller';
 import { AuthService } from './auth.service';
-import { INVITATION_GATE, NoInvitationGate } from './invitation-gate';
+import { InvitationsModule } from '../invitations/invitations.module';
+import { InvitationsService } from '../invitations/invitations.service';
+import { INVITATION_GATE } from './invitation-gate';
 import { LocalStrategy } from './local.strategy';
 import { PasswordResetEntity } from './password-reset.entity';
 import { SignInThrottlerGuard } from './sign-in-throttler.guard';
@@ -17,6 +19,7 @@ import { SignInThrottlerGuard } from './sign-in-throttler.guard';
   imports: [
     UsersModule,
     MailModule,
+    InvitationsModule,
     PassportModule,
     TypeOrmModule.forFeature([PasswordResetEntity]),
     ThrottlerModule.forRootAsync({
@@ -32,8 +35,8 @@ import { SignInThrottlerGuard } from './sign-in-throttler.guard';
     AuthService,
     LocalStrategy,
     SignInThrottlerGuard,
-    // Invitations replace this binding: { provide: INVITATION_GATE, useExisting: InvitationsService }.
-    { provide: INVITATION_GATE, useClass: NoInvitationGate },
+    // Sign-up with an invitation token: the invitations feature checks and accepts it.
+    { provide: INVITATION_GATE, useExisting: InvitationsService },
   ],
   exports: [AuthService],
 })

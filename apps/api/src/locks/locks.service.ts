@@ -1,0 +1,195 @@
+import { ConflictException, Inject, Injectable, NotFoundException } from '@nestjs/common';
+import type { ConfigType } from '@nestjs/config';
+import { InjectDataSource } from '@nestjs/typeorm';
+import { createHash } from 'node:crypto';
+import { DataSource } from 'typeorm';
+import { ENGINE_VERSION } from '@cribra/engine';
+import { LANG_VERSION } from '@cribra/lang';
+import {
+  NOTEBOOK_TITLE_MAX,
+  REVISION_DIGEST_VERSION,
+  type DuplicateNotebookResponse,
+  type LockExportFormat,
+  type LockRecord,
+  type VerificationView,
+} from '@cribra/contracts';
+import { AuditService } from '../audit/audit.service';
+import { appConfig } from '../config/app.config';
+import type { Actor } from '../members/notebook-policy.service';
+import { loadDigestCells, revisionDigestOf } from '../reviews/revision-digest';
+import { ReviewsService } from '../reviews/reviews.service';
+import { VerificationsService } from '../reviews/verifications.service';
+import { DuplicateNotebookDto } from './dto/duplicate-notebook.dto';
+import { lockRecordMarkdown } from './lock-markdown';
+
+export interface LockFile {
+  fileName: string;
+  mediaType: string;
+  body: string;
+}
+
+const distinct = (xs: Array<string | null>): string[] => [...new Set(xs.filter((x): x is string => !!x))].sort();
+
+/** Locking a signed-off notebook, its lock record (read, export, check) and duplication into a draft. */
+@Injectable()
+export class LocksService {
+  constructor(
+    @InjectDataSource() private readonly db: DataSource,
+    @Inject(appConfig.KEY) private readonly cfg: ConfigType<typeof appConfig>,
+    private readonly audit: AuditService,
+    private readonly reviews: ReviewsService,
+    private readonly verifications: VerificationsService,
+  ) {}
+
+  /**
+   * Locks the notebook when it is in review with enough valid sign-offs on its current revision
+   * digest and nothing running. The notebook row is locked FOR UPDATE meanwhile; a concurrent
+   * cell edit that commits after this is refused by the database trigger.
+   */
+  async lock(actor: Actor, notebookId: string): Promise<LockRecord> {
+    await this.reviews.reconcile(notebookId);
+    const record = await this.db.transaction(async (m) => {
+      const [nb] = await m.query(
+        `SELECT n.id, n.title, n.status, n.revision, n.required_signoffs, n.owner_id FROM notebooks n WHERE n.id = $1 FOR UPDATE`,
+        [notebookId],
+      );
+      if (!nb) throw new NotFoundException('Notebook not found');
+      const cells = await loadDigestCells(m, notebookId);
+      const digest = revisionDigestOf(cells);
+      const signoffs = await this.reviews.validSignoffs(m, notebookId, digest);
+      const blockers = await this.reviews.lockBlockers(m, nb, signoffs.length);
+      if (blockers.length) throw new ConflictException({ message: `Cannot lock: ${blockers.join('; ')}`, details: { blockers } });
+      const [me] = await m.query(`SELECT display_name FROM users WHERE id = $1`, [actor.id]);
+      const [{ now }] = await m.query(`SELECT now() AS now`);
+      const record: LockRecord = {
+        notebookId,
+        title: nb.title,
+        notebookRevision: nb.revision,
+        revisionDigest: digest,
+        digestVersion: REVISION_DIGEST_VERSION,
+        lockedBy: { id: actor.id, displayName: me?.display_name ?? '' },
+        lockedAt: new Date(now).toISOString(),
+        signers: signoffs.map((s) => ({
+          reviewId: s.id,
+          user: { id: s.reviewer_id, displayName: s.reviewer_name },
+          signedAt: new Date(s.created_at).toISOString(),
+          verificationId: s.verification_id,
+          comment: s.comment,
+        })),
+        requiredSignoffs: nb.required_signoffs,
+        engineVersion: ENGINE_VERSION,
+        languageVersion: LANG_VERSION,
+        runEngineVersions: distinct(cells.map((c) => c.engineVersion)),
+        runLanguageVersions: distinct(cells.map((c) => c.languageVersion)),
+        cells: cells.map((c) => ({
+          id: c.id,
+          position: c.position,
+          kind: c.kind,
+          sourceSha256: createHash('sha256').update(c.source, 'utf8').digest('hex'),
+          source: c.source,
+          outputDigest: c.outputDigest,
+          runId: c.runId,
+          engineVersion: c.engineVersion,
+          languageVersion: c.languageVersion,
+        })),
+      };
+      await m.query(
+        `INSERT INTO notebook_locks (notebook_id, locked_by, locked_at, revision_digest, notebook_revision, record)
+         VALUES ($1, $2, $3, $4, $5, $6)`,
+        [notebookId, actor.id, now, digest, nb.revision, JSON.stringify(record)],
+      );
+      await m.query(`UPDATE notebooks SET status = 'locked', updated_at = now() WHERE id = $1`, [notebookId]);
+      await this.audit.record(
+        actor.id,
+        'notebook.lock',
+        notebookId,
+        { revisionDigest: digest, signers: record.signers.map((s) => s.user.id) },
+        m,
+      );
+      return record;
+    });
+    return record;
+  }
+
+  async record(notebookId: string): Promise<LockRecord> {
+    const rows: Array<{ record: LockRecord }> = await this.db.query(`SELECT record FROM notebook_locks WHERE notebook_id = $1`, [notebookId]);
+    if (!rows.length) throw new NotFoundException('This notebook is not locked');
+    return rows[0].record;
+  }
+
+  async export(actor: Actor, notebookId: string, format: LockExportFormat): Promise<LockFile> {
+    const record = await this.record(notebookId);
+    await this.audit.record(actor.id, `export.lock_${format}`, notebookId, {});
+    const base = `lock-record-${notebookId.slice(0, 8)}`;
+    if (format === 'json') {
+      return { fileName: `${base}.json`, mediaType: 'application/json; charset=utf-8', body: `${JSON.stringify(record, null, 2)}\n` };
+    }
+    return { fileName: `${base}.md`, mediaType: 'text/markdown; charset=utf-8', body: lockRecordMarkdown(record, this.cfg.publicUrl) };
+  }
+
+  /** Re-runs the locked notebook and compares with the lock record (the record is not changed). */
+  async check(actor: Actor, notebookId: string): Promise<VerificationView> {
+    const record = await this.record(notebookId);
+    const view = await this.verifications.start(actor, notebookId, 'lock', {
+      revisionDigest: record.revisionDigest,
+      cells: record.cells.map((c) => ({
+        id: c.id,
+        kind: c.kind,
+        position: c.position,
+        source: c.source,
+        outputDigest: c.outputDigest,
+        runId: c.runId,
+        engineVersion: c.engineVersion,
+        languageVersion: c.languageVersion,
+      })),
+    });
+    await this.audit.record(actor.id, 'lock.check', notebookId, { verificationId: view.id });
+    return view;
+  }
+
+  /**
+   * A new draft owned by `actor` with copies of the cells, of each cell's recorded run (so the
+   * outputs stay visible) and of the uploads. Works on any notebook, locked or not: it only reads it.
+   */
+  async duplicate(actor: Actor, notebookId: string, body: DuplicateNotebookDto): Promise<DuplicateNotebookResponse> {
+    const id = await this.db.transaction(async (m) => {
+      const [src] = await m.query(`SELECT title, summary, tags, required_signoffs FROM notebooks WHERE id = $1`, [notebookId]);
+      if (!src) throw new NotFoundException('Notebook not found');
+      const title = (body.title?.trim() || `${src.title} (copy)`).slice(0, NOTEBOOK_TITLE_MAX);
+      const [{ id }] = await m.query(
+        `INSERT INTO notebooks (title, summary, tags, owner_id, required_signoffs) VALUES ($1, $2, $3, $4, $5) RETURNING id`,
+        [title, src.summary, src.tags, actor.id, src.required_signoffs],
+      );
+      await m.query(`INSERT INTO notebook_members (notebook_id, user_id, role, added_by) VALUES ($1, $2, 'owner', $2)`, [id, actor.id]);
+      const cells = await loadDigestCells(m, notebookId);
+      for (const c of cells) {
+        const [{ id: cellId }] = await m.query(
+          `INSERT INTO cells (notebook_id, kind, source, position, author_id)
+           SELECT $1, kind, source, position, author_id FROM cells WHERE id = $2 RETURNING id`,
+          [id, c.id],
+        );
+        if (c.runId) {
+          await m.query(
+            `INSERT INTO runs (notebook_id, cell_id, cell_revision, cell_kind, source, purpose, status, progress, outputs,
+                               output_digest, engine_version, language_version, runner_id, attempts, requested_by,
+                               queued_at, started_at, finished_at, duration_ms)
+             SELECT $1, $2, 1, cell_kind, source, 'run', status, progress, outputs, output_digest, engine_version,
+                    language_version, runner_id, attempts, requested_by, queued_at, started_at, finished_at, duration_ms
+               FROM runs WHERE id = $3`,
+            [id, cellId, c.runId],
+          );
+        }
+      }
+      await m.query(
+        `INSERT INTO uploads (notebook_id, owner_id, name, original_name, kind, media_type, size_bytes, sha256, row_count, columns, content, raw)
+         SELECT $1, $2, name, original_name, kind, media_type, size_bytes, sha256, row_count, columns, content, raw
+           FROM uploads WHERE notebook_id = $3`,
+        [id, actor.id, notebookId],
+      );
+      await this.audit.record(actor.id, 'notebook.duplicate', notebookId, { copyId: id }, m);
+      await this.audit.record(actor.id, 'notebook.create', id, { title, duplicateOf: notebookId }, m);
+      return id as string;
+    });
+    return { id };
+  }
+}
