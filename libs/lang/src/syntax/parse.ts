@@ -120,7 +120,7 @@ function expectationOf(e: IRecognitionException): string {
     binder: 'a binder such as p ∈ primes 5..29, or a condition',
     bigOperator: "'[' binders ']' followed by a body",
   };
-  return byRule[rule] ?? 'an expression';
+  return byRule[rule] ?? byRule['primary']!;
 }
 
 const WORDS: Record<string, string> = {

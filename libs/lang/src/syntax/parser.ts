@@ -483,7 +483,7 @@ class SiftParser extends EmbeddedActionsParser {
           // ∑ and ∏ extend over a product (as in ∑ 1/n); quantifiers and counts over a comparison.
           const body = this.OR3({ IGNORE_AMBIGUITIES: true, DEF: [
             { GATE: () => op === 'sum' || op === 'prod', ALT: () => this.SUBRULE(this.multiplicative) },
-            { GATE: () => op === 'table', ALT: () => this.SUBRULE(this.postfix) },
+            { GATE: () => op === 'table', ALT: () => this.SUBRULE(this.primary) },
             { ALT: () => this.SUBRULE(this.notExpr) },
           ] });
           return this.ACTION((): Expr => ({ t: 'big', op, binders, body, span: spanOf2(spanOf(opTok), this.end()) }));
