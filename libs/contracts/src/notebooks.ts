@@ -229,7 +229,7 @@ export interface RunOutput {
   [key: string]: unknown;
 }
 
-export type RunErrorKind = 'syntax' | 'type' | 'runtime' | 'limit' | 'input' | 'cancelled' | 'internal';
+export type RunErrorKind = 'syntax' | 'type' | 'domain' | 'runtime' | 'limit' | 'input' | 'cancelled' | 'internal';
 
 export interface RunError {
   kind: RunErrorKind;

@@ -17,22 +17,23 @@ export interface DocumentWriter {
 }
 
 function describeVerdict(o: RunOutput): string {
-  const v = o as { verdict?: unknown; holds?: unknown; range?: unknown; checked?: unknown; counterexample?: unknown; message?: unknown };
-  const verdict = typeof v.verdict === 'string' ? v.verdict : v.holds === true ? 'holds' : v.holds === false ? 'fails' : 'verdict';
-  const range = v.range ?? v.checked;
-  const parts = [`Claim ${verdict}`];
-  if (range !== undefined) parts.push(`on the checked range ${cellText(range)}`);
-  if (v.counterexample !== undefined) parts.push(`counterexample: ${cellText(v.counterexample)}`);
-  if (typeof v.message === 'string') parts.push(v.message);
-  return `${parts.join('; ')}. (Computed evidence over a bounded range, not a proof.)`;
+  const v = o as { holds?: unknown; over?: unknown; checked?: unknown; skipped?: unknown; summary?: unknown; statement?: unknown };
+  const verdict = v.holds === true ? 'holds' : v.holds === false ? 'fails' : 'has no verdict';
+  const parts = [`Claim ${typeof v.statement === 'string' ? `\`${v.statement}\` ` : ''}${verdict}`];
+  if (typeof v.over === 'string') parts.push(`over ${v.over}`);
+  if (typeof v.checked === 'number') parts.push(`${v.checked} case(s) checked`);
+  const text = `${parts.join(', ')}.${typeof v.summary === 'string' ? ` ${v.summary}` : ''}`;
+  return v.holds === true ? `${text} (Computed evidence over the checked range, not a proof.)` : text;
 }
 
 function renderOutput(w: DocumentWriter, o: RunOutput): string {
+  const label = typeof o.label === 'string' && o.label ? `${o.label} = ` : '';
   const table = asTable(o);
-  if (table) return w.table(table.columns, table.rows.map((r) => r.map(cellText)));
-  if (o.kind === 'verdict' || o.kind === 'claim') return w.paragraph(describeVerdict(o));
+  if (table) return (label ? w.paragraph(String(o.label)) + '\n\n' : '') + w.table(table.columns, table.rows.map((r) => r.map(cellText)));
+  if (o.kind === 'verdict') return w.paragraph(describeVerdict(o));
   if (o.kind === 'text' && typeof o.text === 'string') return w.paragraph(o.text);
-  if ('value' in o) return w.code(`${typeof o.label === 'string' ? `${o.label} = ` : ''}${cellText(o.value)}`);
+  if (o.kind === 'value' && typeof o.text === 'string') return w.code(`${label}${o.text}`);
+  if (o.kind === 'chart') return w.paragraph(`Chart${typeof o.title === 'string' ? `: ${o.title}` : ''} (see the notebook for the figure).`);
   return w.code(JSON.stringify(o, null, 2));
 }
 

@@ -13,13 +13,22 @@ export function asTable(output: RunOutput | undefined): Table | null {
   return { columns: columns.map(cellText), rows: rows as unknown[][] };
 }
 
-/** Text of one cell value: strings as is, numbers and bigints as decimals, objects as JSON. */
+/**
+ * Text of one cell value: strings as is, numbers and bigints as decimals, Sift values
+ * (`{t, v}` JSON from @cribra/lang) by their exact text, anything else as JSON.
+ */
 export function cellText(v: unknown): string {
   if (v === null || v === undefined) return '';
   if (typeof v === 'string') return v;
   if (typeof v === 'number' || typeof v === 'bigint' || typeof v === 'boolean') return String(v);
-  const o = v as { kind?: string; value?: unknown; text?: unknown };
-  if (o && typeof o === 'object' && 'value' in o && (typeof o.value === 'string' || typeof o.value === 'number')) return String(o.value);
+  const o = v as { t?: string; v?: unknown; lo?: string; hi?: string; columns?: unknown };
+  if (o && typeof o === 'object' && typeof o.t === 'string') {
+    if (o.t === 'tuple' && Array.isArray(o.v)) return `(${o.v.join(', ')})`;
+    if (o.t === 'range') return `${o.lo}..${o.hi}`;
+    if (o.t === 'series' && Array.isArray(o.v)) return `[${o.v.map(cellText).join(', ')}]`;
+    if (o.t === 'record' && Array.isArray(o.v)) return `{${(o.v as Array<[string, unknown]>).map(([k, x]) => `${k}: ${cellText(x)}`).join(', ')}}`;
+    if (typeof o.v === 'string' || typeof o.v === 'number' || typeof o.v === 'boolean') return String(o.v);
+  }
   return JSON.stringify(v);
 }
 

@@ -88,7 +88,7 @@ export async function requestLedgerRange(db: DataSource, boss: PgBoss, from: str
   const done = stored === total;
   const [{ id }] = await db.query(
     `INSERT INTO computations (kind, params, requested_by, chunks_total, chunks_done, status, finished_at)
-     VALUES ('ledger', $1, $2, $3, $4, $5, CASE WHEN $5 = 'succeeded' THEN now() END) RETURNING id`,
+     VALUES ('ledger', $1, $2, $3, $4, $5::varchar, CASE WHEN $5::varchar = 'succeeded' THEN now() END) RETURNING id`,
     [JSON.stringify({ from, to, firstBlock: first, lastBlock: last }), requestedBy, total, stored, done ? 'succeeded' : 'queued'],
   );
   if (!done) await sendPlan(boss, id);

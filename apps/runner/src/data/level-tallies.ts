@@ -1,0 +1,164 @@
+import { createHash } from 'node:crypto';
+import {
+  chunkCopies,
+  combineWheelChunks,
+  histogramFromDense,
+  MAX_MEMORY_LEVEL,
+  patternsFromDense,
+  planWheelChunks,
+  previousPrime,
+  primorial,
+  primorialTotient,
+  runWheelChunk,
+  wheelGaps,
+  wheelLevelStats,
+  type GapHistogram,
+  type PatternTally as EnginePatternTally,
+  type WheelChunkSpec,
+  type WheelChunkTally,
+} from '@cribra/engine';
+import type { GapCount, PatternTally } from '@cribra/contracts';
+
+/** Levels up to 23# are enumerated in one piece; deeper ones are streamed in chunks over 23#. */
+export const IN_ONE_PIECE_UP_TO = MAX_MEMORY_LEVEL;
+/** Consecutive-pattern lengths stored for levels enumerated in one piece. */
+export const SMALL_LEVEL_PATTERN_LENGTHS = [2, 3] as const;
+/** Streamed levels store pairs of consecutive gaps. */
+export const STREAMED_PATTERN_LENGTH = 2;
+/** Base-cycle steps per chunk job (a few seconds of one core). */
+export const STEPS_PER_CHUNK = 1e9;
+
+/** A level chunk as stored in level_chunks.summary (JSON). */
+export type ChunkSummaryJson =
+  | { kind: 'stats'; prime: number; histogram: GapCount[]; largestGap: number; patternTallies: PatternTally[] }
+  | {
+      kind: 'tally';
+      target: number;
+      radix: number;
+      patternLength: number;
+      maxGap: number;
+      steps: number;
+      /** Sparse [index, count] pairs of the dense arrays. */
+      histogram: Array<[number, number]>;
+      patterns: Array<[number, number]> | null;
+      firstPosition: Array<[number, number]>;
+      histogramLength: number;
+      patternsLength: number;
+    };
+
+/** Base level a deep level is streamed over. */
+export function streamBase(prime: number): number {
+  return Math.min(previousPrime(prime), IN_ONE_PIECE_UP_TO);
+}
+
+/** Number of chunk jobs for a level. */
+export function levelChunkCount(prime: number): number {
+  if (prime <= IN_ONE_PIECE_UP_TO) return 1;
+  const base = streamBase(prime);
+  const copies = chunkCopies(base, prime);
+  const steps = copies * Number(primorialTotient(base));
+  return Math.max(1, Math.min(copies, Math.ceil(steps / STEPS_PER_CHUNK)));
+}
+
+/** The chunk specs of a deep level (deterministic: every runner derives the same list). */
+export function levelChunkSpecs(prime: number, chunks: number): WheelChunkSpec[] {
+  return planWheelChunks(streamBase(prime), prime, chunks, STREAMED_PATTERN_LENGTH);
+}
+
+const sparse = (a: Float64Array): Array<[number, number]> => {
+  const out: Array<[number, number]> = [];
+  a.forEach((v, i) => {
+    if (v) out.push([i, v]);
+  });
+  return out;
+};
+const dense = (pairs: Array<[number, number]>, length: number, fill = 0): Float64Array => {
+  const a = new Float64Array(length).fill(fill);
+  for (const [i, v] of pairs) a[i] = v;
+  return a;
+};
+
+function histogramList(h: GapHistogram): GapCount[] {
+  return [...h].map(([gap, count]) => ({ gap, count: count.toString() }));
+}
+function tallyList(length: number, t: EnginePatternTally): PatternTally {
+  return { length, entries: [...t].map(([key, count]) => ({ pattern: key.split(',').map(Number), count: count.toString() })) };
+}
+
+/** Computes chunk `index` of `chunks` for level `prime` with the engine. */
+export function computeLevelChunk(prime: number, index: number, chunks: number): ChunkSummaryJson {
+  if (prime <= IN_ONE_PIECE_UP_TO) {
+    const s = wheelLevelStats(prime, [...SMALL_LEVEL_PATTERN_LENGTHS]);
+    return {
+      kind: 'stats',
+      prime,
+      histogram: histogramList(s.histogram),
+      largestGap: s.maxGap,
+      patternTallies: SMALL_LEVEL_PATTERN_LENGTHS.map((L) => tallyList(L, s.patterns.get(L)!)),
+    };
+  }
+  const spec = levelChunkSpecs(prime, chunks)[index];
+  if (!spec) throw new Error(`level ${prime} has no chunk ${index} of ${chunks}`);
+  const t = runWheelChunk(spec, wheelGaps(spec.base));
+  return {
+    kind: 'tally',
+    target: t.target,
+    radix: t.radix,
+    patternLength: t.patternLength,
+    maxGap: t.maxGap,
+    steps: t.steps,
+    histogram: sparse(t.histogram),
+    patterns: t.patterns ? sparse(t.patterns) : null,
+    firstPosition: sparse(t.firstPosition.map((v) => v + 1)),
+    histogramLength: t.histogram.length,
+    patternsLength: t.patterns?.length ?? 0,
+  };
+}
+
+function tallyFromJson(j: Extract<ChunkSummaryJson, { kind: 'tally' }>): WheelChunkTally {
+  const firstPosition = dense(j.firstPosition, j.histogramLength, 0).map((v) => v - 1);
+  return {
+    target: j.target,
+    radix: j.radix,
+    patternLength: j.patternLength,
+    histogram: dense(j.histogram, j.histogramLength),
+    patterns: j.patterns ? dense(j.patterns, j.patternsLength) : null,
+    firstPosition,
+    maxGap: j.maxGap,
+    steps: j.steps,
+  };
+}
+
+export interface LevelResult {
+  prime: number;
+  modulus: string;
+  phi: string;
+  largestGap: number;
+  histogram: GapCount[];
+  patternTallies: PatternTally[];
+  digest: string;
+}
+
+/** Combines the chunks of a level (in chunk order) into the stored result, with its digest. */
+export function combineLevelChunks(prime: number, chunks: ChunkSummaryJson[]): LevelResult {
+  let body: Omit<LevelResult, 'digest'>;
+  const head = { prime, modulus: primorial(prime).toString(), phi: primorialTotient(prime).toString() };
+  if (chunks.length === 1 && chunks[0].kind === 'stats') {
+    const s = chunks[0];
+    body = { ...head, largestGap: s.largestGap, histogram: s.histogram, patternTallies: s.patternTallies };
+  } else {
+    const t = combineWheelChunks(chunks.map((c) => {
+      if (c.kind !== 'tally') throw new Error('mixed chunk kinds');
+      return tallyFromJson(c);
+    }));
+    const R = t.radix + 1;
+    body = {
+      ...head,
+      largestGap: t.maxGap,
+      histogram: histogramList(histogramFromDense(t.histogram, t.radix)),
+      patternTallies: t.patterns ? [tallyList(t.patternLength, patternsFromDense(t.patterns, t.patternLength, R, t.radix))] : [],
+    };
+  }
+  const digest = createHash('sha256').update(JSON.stringify(body)).digest('hex');
+  return { ...body, digest };
+}

@@ -1,0 +1,104 @@
+import { QUEUES, type RunCellJob, type LedgerComputationBody } from '@cribra/contracts';
+import { PgDataProvider } from '../data/pg-data-provider';
+import { requestLedgerComputation } from '../data/ledger-requests';
+import { sleep, type JobContext, type JobHandler } from '../job-context';
+import type { SiftResult } from '../sift/sift-executor';
+
+/** Least time between two progress writes of one run. */
+const PROGRESS_EVERY_MS = 250;
+/** How often a running cell checks whether it was cancelled or taken over. */
+const CANCEL_POLL_MS = 1000;
+
+/**
+ * Executes one run. Claims the row (queued or running → running by this runner, attempts + 1),
+ * executes in the Sift pool, and stores the result only while it still owns the row: a run that
+ * was cancelled, or re-taken by another runner after this one was presumed dead, is left alone.
+ * So a run completes exactly once whatever happens to runners.
+ */
+export const runCell: JobHandler<RunCellJob> = async (ctx, job) => {
+  const { db, cfg } = ctx;
+  const { runId } = job.data;
+  const claimed = await db.query(
+    `UPDATE runs SET status = 'running', runner_id = $2, attempts = attempts + 1, started_at = now(),
+            progress = 0, progress_note = NULL, error = NULL
+      WHERE id = $1 AND status IN ('queued', 'running')
+      RETURNING notebook_id, cell_kind, source`,
+    [runId, cfg.runnerId],
+  );
+  if (!claimed.rowCount) return; // cancelled or already finished: nothing to do
+  const { notebook_id: notebookId, cell_kind: kind, source } = claimed.rows[0];
+  if (cfg.testPauseMs) await sleep(cfg.testPauseMs);
+
+  const started = Date.now();
+  const abort = new AbortController();
+  const watch = setInterval(() => {
+    void db
+      .query(`SELECT status, runner_id FROM runs WHERE id = $1`, [runId])
+      .then(({ rows }) => {
+        if (!rows.length || rows[0].status !== 'running' || rows[0].runner_id !== cfg.runnerId) abort.abort();
+      })
+      .catch(() => undefined);
+  }, CANCEL_POLL_MS);
+
+  let lastWrite = 0;
+  let pending: { fraction: number; note: string } | null = null;
+  const writeProgress = (): void => {
+    if (!pending) return;
+    const { fraction, note } = pending;
+    pending = null;
+    lastWrite = Date.now();
+    void db
+      .query(`UPDATE runs SET progress = $2, progress_note = $3 WHERE id = $1 AND status = 'running' AND runner_id = $4`, [
+        runId,
+        Math.max(0, Math.min(1, fraction)),
+        note.slice(0, 200),
+        cfg.runnerId,
+      ])
+      .catch(() => undefined);
+  };
+  const onProgress = (fraction: number, note: string): void => {
+    pending = { fraction, note };
+    if (Date.now() - lastWrite >= PROGRESS_EVERY_MS) writeProgress();
+  };
+
+  const provider = new PgDataProvider(db, {
+    notebookId,
+    runnerId: cfg.runnerId,
+    maxInlineBlocks: 20,
+    requestLedger: async (from, to) => {
+      const body: LedgerComputationBody = { from: from.toString(), to: to.toString() };
+      await requestLedgerComputation(ctx, body);
+    },
+    onNote: (note) => onProgress(0, note),
+  });
+
+  let result: SiftResult;
+  try {
+    result = await ctx.executor.execute({ source, kind, provider, signal: abort.signal, onProgress });
+  } finally {
+    clearInterval(watch);
+  }
+  const failed = result.error !== null;
+  const done = await db.query(
+    `UPDATE runs SET status = $3::varchar, outputs = $4, output_digest = $5, error = $6, engine_version = $7,
+            language_version = $8, progress = CASE WHEN $3::varchar = 'succeeded' THEN 1 ELSE progress END,
+            progress_note = NULL, finished_at = now(), duration_ms = $9
+      WHERE id = $1 AND status = 'running' AND runner_id = $2`,
+    [
+      runId,
+      cfg.runnerId,
+      failed ? 'failed' : 'succeeded',
+      JSON.stringify(result.outputs),
+      result.digest,
+      result.error ? JSON.stringify(result.error) : null,
+      result.engineVersion,
+      result.languageVersion,
+      Date.now() - started,
+    ],
+  );
+  if (done.rowCount === 1) {
+    ctx.log(`run ${runId} ${failed ? 'failed' : 'succeeded'} in ${Date.now() - started} ms (attempt job ${job.id})`);
+  }
+};
+
+export const RUN_CELL_QUEUE = QUEUES.runCell;

@@ -1,0 +1,49 @@
+import { availableParallelism, hostname } from 'node:os';
+import { randomBytes } from 'node:crypto';
+import { QUEUE_DEFAULT_EXPIRE_SECONDS } from '@cribra/contracts';
+
+/** Everything a runner reads from its environment. */
+export interface RunnerConfig {
+  databaseUrl: string;
+  /** Unique per process: host, pid and a random suffix (shown on runs and stored data). */
+  runnerId: string;
+  host: string;
+  /** Jobs executed at the same time by this process. */
+  slots: number;
+  /** Expiry of a job before another runner retries it. */
+  jobExpireSeconds: number;
+  /** How often this runner runs pg-boss maintenance (expiring jobs of dead runners). */
+  maintenanceSeconds: number;
+  heartbeatMs: number;
+  pollMs: number;
+  /** Test hook, honoured only with CRIBRA_ENV=test: pause inside each job after it started. */
+  testPauseMs: number;
+  env: string;
+}
+
+function positiveInt(value: string | undefined, fallback: number, name: string): number {
+  if (value === undefined || value === '') return fallback;
+  const n = Number(value);
+  if (!Number.isInteger(n) || n <= 0) throw new Error(`${name} must be a positive integer, got "${value}"`);
+  return n;
+}
+
+export function readRunnerConfig(env: NodeJS.ProcessEnv = process.env): RunnerConfig {
+  const host = hostname();
+  const cribraEnv = env.CRIBRA_ENV ?? 'development';
+  return {
+    databaseUrl: env.DATABASE_URL ?? 'postgres://postgres@127.0.0.1:4311/cribra',
+    runnerId: env.CRIBRA_RUNNER_ID || `${host}-${process.pid}-${randomBytes(3).toString('hex')}`,
+    host,
+    slots: positiveInt(env.CRIBRA_RUNNER_SLOTS, Math.max(1, availableParallelism() - 1), 'CRIBRA_RUNNER_SLOTS'),
+    jobExpireSeconds: positiveInt(env.CRIBRA_JOB_EXPIRE_SECONDS, QUEUE_DEFAULT_EXPIRE_SECONDS, 'CRIBRA_JOB_EXPIRE_SECONDS'),
+    maintenanceSeconds: positiveInt(env.CRIBRA_QUEUE_MAINTENANCE_SECONDS, 30, 'CRIBRA_QUEUE_MAINTENANCE_SECONDS'),
+    heartbeatMs: positiveInt(env.CRIBRA_RUNNER_HEARTBEAT_MS, 5000, 'CRIBRA_RUNNER_HEARTBEAT_MS'),
+    pollMs: positiveInt(env.CRIBRA_RUNNER_POLL_MS, 500, 'CRIBRA_RUNNER_POLL_MS'),
+    testPauseMs:
+      cribraEnv === 'test' && env.CRIBRA_RUNNER_TEST_PAUSE_MS
+        ? positiveInt(env.CRIBRA_RUNNER_TEST_PAUSE_MS, 0, 'CRIBRA_RUNNER_TEST_PAUSE_MS')
+        : 0,
+    env: cribraEnv,
+  };
+}

@@ -1,0 +1,153 @@
+import PgBoss from 'pg-boss';
+import { Pool } from 'pg';
+import { QUEUES, type QueueName } from '@cribra/contracts';
+import { Heartbeat } from './heartbeat';
+import { sleep, type JobContext, type JobHandler } from './job-context';
+import { combine } from './jobs/combine.job';
+import { ledgerBlock } from './jobs/ledger-block.job';
+import { levelChunk } from './jobs/level-chunk.job';
+import { plan } from './jobs/plan.job';
+import { runCell } from './jobs/run-cell.job';
+import { ensureQueues } from './queue/job-options';
+import type { RunnerConfig } from './runner-config';
+import type { SiftExecutor } from './sift/sift-executor';
+
+/** Queues in the order a free slot looks at them: people waiting on a cell come first. */
+const HANDLERS: Array<[QueueName, JobHandler<never>]> = [
+  [QUEUES.runCell, runCell as JobHandler<never>],
+  [QUEUES.combine, combine as JobHandler<never>],
+  [QUEUES.plan, plan as JobHandler<never>],
+  [QUEUES.levelChunk, levelChunk as JobHandler<never>],
+  [QUEUES.ledgerBlock, ledgerBlock as JobHandler<never>],
+];
+
+/**
+ * A runner process: takes jobs from pg-boss (any number of runners, on any machine, share the
+ * queues), executes up to `slots` at once, completes or fails them. A job whose runner dies is
+ * expired by pg-boss maintenance (run by every runner) and retried elsewhere; handlers are
+ * idempotent, so retried work is stored once.
+ */
+export class Runner {
+  readonly db: Pool;
+  readonly boss: PgBoss;
+  private readonly heartbeat: Heartbeat;
+  private readonly ctx: JobContext;
+  private active = 0;
+  private stopping = false;
+  private wake: (() => void) | null = null;
+  private loop: Promise<void> | null = null;
+
+  constructor(
+    private readonly cfg: RunnerConfig,
+    executor: SiftExecutor,
+  ) {
+    this.db = new Pool({ connectionString: cfg.databaseUrl, max: cfg.slots + 4 });
+    this.db.on('error', (err) => this.log(`database: ${err.message}`));
+    this.boss = new PgBoss({
+      connectionString: cfg.databaseUrl,
+      schema: 'pgboss',
+      max: 4,
+      supervise: true,
+      schedule: false,
+      maintenanceIntervalSeconds: cfg.maintenanceSeconds,
+    });
+    this.boss.on('error', (err) => this.log(`queue: ${err.message}`));
+    this.heartbeat = new Heartbeat(this.db, cfg);
+    this.ctx = { db: this.db, boss: this.boss, cfg, executor, log: (m) => this.log(m) };
+  }
+
+  log(message: string): void {
+    console.log(`[runner ${this.cfg.runnerId}] ${message}`);
+  }
+
+  async start(): Promise<void> {
+    await this.boss.start();
+    await ensureQueues(this.boss, this.cfg);
+    await this.heartbeat.start();
+    this.loop = this.run();
+    this.log(`started with ${this.cfg.slots} slot(s), job expiry ${this.cfg.jobExpireSeconds} s`);
+  }
+
+  private async run(): Promise<void> {
+    while (!this.stopping) {
+      if (this.active < this.cfg.slots) {
+        const next = await this.fetchNext().catch((err: Error) => {
+          this.log(`fetch failed: ${err.message}`);
+          return null;
+        });
+        if (next) {
+          this.active++;
+          void this.execute(next.queue, next.handler, next.job).finally(() => {
+            this.active--;
+            this.wake?.();
+          });
+          continue;
+        }
+      }
+      await new Promise<void>((resolve) => {
+        this.wake = resolve;
+        setTimeout(resolve, this.cfg.pollMs);
+      });
+      this.wake = null;
+    }
+  }
+
+  private async fetchNext(): Promise<{ queue: QueueName; handler: JobHandler<never>; job: PgBoss.JobWithMetadata<never> } | null> {
+    for (const [queue, handler] of HANDLERS) {
+      const jobs = (await this.boss.fetch(queue, { batchSize: 1, includeMetadata: true })) as PgBoss.JobWithMetadata<never>[] | null;
+      if (jobs && jobs.length) return { queue, handler, job: jobs[0] };
+    }
+    return null;
+  }
+
+  private async execute(queue: QueueName, handler: JobHandler<never>, job: PgBoss.JobWithMetadata<never>): Promise<void> {
+    this.heartbeat.current = `${queue}:${job.id}`;
+    void this.heartbeat.beat().catch(() => undefined);
+    try {
+      await handler(this.ctx, job);
+      await this.boss.complete(queue, job.id);
+      await this.heartbeat.jobDone().catch(() => undefined);
+    } catch (err) {
+      const message = err instanceof Error ? err.message : String(err);
+      this.log(`${queue} job ${job.id} failed (attempt ${job.retryCount + 1} of ${job.retryLimit + 1}): ${message}`);
+      await this.boss.fail(queue, job.id, { message }).catch(() => undefined);
+      if (job.retryCount >= job.retryLimit) await this.giveUp(queue, job, message).catch(() => undefined);
+    } finally {
+      this.heartbeat.current = null;
+    }
+  }
+
+  /** After the last retry, mark what the job was for as failed so nobody waits for it forever. */
+  private async giveUp(queue: QueueName, job: PgBoss.JobWithMetadata<never>, message: string): Promise<void> {
+    const data = job.data as { runId?: string; computationId?: string | null };
+    if (queue === QUEUES.runCell && data.runId) {
+      await this.db.query(
+        `UPDATE runs SET status = 'failed', finished_at = now(), error = $2 WHERE id = $1 AND status IN ('queued', 'running')`,
+        [data.runId, JSON.stringify({ kind: 'internal', message: `the runner could not execute the cell: ${message}` })],
+      );
+    } else if (data.computationId) {
+      await this.db.query(
+        `UPDATE computations SET status = 'failed', finished_at = now(), error = $2 WHERE id = $1 AND status IN ('queued', 'running')`,
+        [data.computationId, message.slice(0, 1000)],
+      );
+      await this.db.query(
+        `UPDATE wheel_levels SET status = 'failed' WHERE computation_id = $1 AND status <> 'stored'`,
+        [data.computationId],
+      );
+    }
+  }
+
+  /** Stops taking jobs, lets running ones finish (up to `graceMs`), then closes everything. */
+  async stop(graceMs = 10_000): Promise<void> {
+    this.stopping = true;
+    this.wake?.();
+    await this.loop;
+    const until = Date.now() + graceMs;
+    while (this.active > 0 && Date.now() < until) await sleep(100);
+    await this.heartbeat.stop();
+    await this.boss.stop({ graceful: false, close: true, wait: true }).catch(() => undefined);
+    await this.ctx.executor.close();
+    await this.db.end();
+    this.log('stopped');
+  }
+}
