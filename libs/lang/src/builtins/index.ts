@@ -4,3 +4,5 @@ import './tuples';
 import './wheel';
 import './primes';
 import './counts';
+import './hl';
+import './narrow';
