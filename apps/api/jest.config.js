@@ -19,14 +19,19 @@ module.exports = {
   moduleFileExtensions: ['ts', 'js', 'mjs', 'json'],
   transform: {
     '^.+\\.ts$': ['@swc/jest', swc],
-    // chevrotain (used by @cribra/lang) ships only ES modules; Jest on Node 20 needs them as CommonJS.
+    // chevrotain (used by @cribra/lang) ships only ES modules; Jest on Node 20 needs CommonJS.
     '^.+\\.m?js$': ['@swc/jest', { ...swc, jsc: { ...swc.jsc, parser: { syntax: 'ecmascript' } } }],
   },
-  transformIgnorePatterns: ['/node_modules/(?!(chevrotain|@chevrotain|lodash-es)/)', '/dist/'],
+  transformIgnorePatterns: ['/node_modules/(?!chevrotain/)', '/dist/'],
   // Our libraries are read from source, like vitest does.
   moduleNameMapper: {
     '^@cribra/engine/node$': '<rootDir>/../../libs/engine/src/node/index.ts',
     '^@cribra/(engine|lang|contracts)$': '<rootDir>/../../libs/$1/src/index.ts',
+    // chevrotain is ESM only (its helper packages export an "import" entry only, which Jest cannot
+    // resolve); its single-file bundle is compiled to CommonJS by the transform below instead.
+    '^chevrotain$': '<rootDir>/../../node_modules/chevrotain/lib/chevrotain.mjs',
+    // chevrotain's helper packages export only an "import" condition, which Jest's resolver skips.
+    '^@chevrotain/([a-z-]+)$': '<rootDir>/../../node_modules/@chevrotain/$1/lib/src/api.js',
   },
   testTimeout: 30_000,
   maxWorkers: 1,
