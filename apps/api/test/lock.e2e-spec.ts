@@ -1,0 +1,216 @@
+// Locks: only with enough valid sign-offs; the lock record (JSON, Markdown); the API refuses every
+// change; the database trigger refuses direct SQL; anyone with access can check it; duplication.
+import type { INestApplication } from '@nestjs/common';
+import { Client as PgClient } from 'pg';
+import { DataSource } from 'typeorm';
+import type { LockRecord, NotebookView } from '@cribra/contracts';
+import {
+  createNotebook,
+  deleteNotebooks,
+  expectStatus,
+  memberWithRole,
+  runAll,
+  verifyAndSignOff,
+  waitVerification,
+} from './helpers/review-fixtures';
+import { Client, createTestApp, newAdmin, newMember } from './helpers/test-app';
+
+let app: INestApplication;
+let db: DataSource;
+const created: string[] = [];
+
+beforeAll(async () => {
+  app = await createTestApp();
+  db = app.get(DataSource);
+});
+
+afterAll(async () => {
+  await deleteNotebooks(app, created);
+  await app.close();
+});
+
+/** A notebook in review with `signoffs` reviewers' sign-offs on its current revision. */
+async function signedOff(owner: Client, signoffs = 1, required = 1): Promise<{ nb: NotebookView; reviewers: Client[] }> {
+  const nb = await createNotebook(owner, 'Admissible 10-tuples of minimal diameter');
+  created.push(nb.id);
+  if (required !== 1) expectStatus(await owner.call('patch', `/api/notebooks/${nb.id}`, { revision: nb.revision, requiredSignoffs: required }), 200);
+  await runAll(owner, nb.id);
+  expectStatus(await owner.call('post', `/api/notebooks/${nb.id}/review/request`, {}), 200);
+  const reviewers: Client[] = [];
+  for (let i = 0; i < signoffs; i++) {
+    const { client } = await memberWithRole(app, owner, nb.id, 'reviewer');
+    await verifyAndSignOff(client, nb.id);
+    reviewers.push(client);
+  }
+  return { nb: (await owner.call('get', `/api/notebooks/${nb.id}`)).body, reviewers };
+}
+
+/** Runs SQL on a plain connection (as a person with psql would) and returns the SQLSTATE it failed with. */
+async function sqlFails(sql: string, params: unknown[]): Promise<string> {
+  const pg = new PgClient({ connectionString: process.env.DATABASE_URL });
+  await pg.connect();
+  try {
+    await pg.query(sql, params);
+  } catch (e) {
+    return (e as { code?: string }).code ?? 'no code';
+  } finally {
+    await pg.end();
+  }
+  throw new Error(`expected the database to refuse: ${sql}`);
+}
+
+describe('locking', () => {
+  it('needs a review and the required number of valid sign-offs', async () => {
+    const { client: owner } = await newMember(app, 'owner');
+    const draft = await createNotebook(owner, 'Never reviewed');
+    created.push(draft.id);
+    const refused = await owner.call('post', `/api/notebooks/${draft.id}/lock`);
+    expectStatus(refused, 409);
+    expect(refused.body.message).toMatch(/asked for review/);
+
+    const { nb } = await signedOff(owner, 1, 2);
+    const one = await owner.call('post', `/api/notebooks/${nb.id}/lock`);
+    expectStatus(one, 409);
+    expect(one.body.details.blockers.join(' ')).toMatch(/2 valid sign-off\(s\).*there are 1/);
+    expect((await owner.call('get', `/api/notebooks/${nb.id}/review`)).body.canLock).toBe(false);
+  });
+
+  it('an admin who is not a member may lock; an editor or reviewer may not', async () => {
+    const { client: owner } = await newMember(app, 'owner');
+    const { nb, reviewers } = await signedOff(owner);
+    const { client: editor } = await memberWithRole(app, owner, nb.id, 'editor');
+    expectStatus(await editor.call('post', `/api/notebooks/${nb.id}/lock`), 403);
+    expectStatus(await reviewers[0].call('post', `/api/notebooks/${nb.id}/lock`), 403);
+    const { client: admin } = await newAdmin(app);
+    const res = await admin.call('post', `/api/notebooks/${nb.id}/lock`);
+    expectStatus(res, 201);
+    expect((await owner.call('get', `/api/notebooks/${nb.id}`)).body.status).toBe('locked');
+  });
+});
+
+describe('a locked notebook', () => {
+  let owner: Client;
+  let viewer: Client;
+  let nb: NotebookView;
+  let record: LockRecord;
+
+  beforeAll(async () => {
+    ({ client: owner } = await newMember(app, 'owner'));
+    const s = await signedOff(owner, 2, 2);
+    nb = s.nb;
+    ({ client: viewer } = await memberWithRole(app, owner, nb.id, 'viewer'));
+    const res = await owner.call('post', `/api/notebooks/${nb.id}/lock`);
+    expectStatus(res, 201);
+    record = res.body;
+  });
+
+  it('has a lock record with digest, signers and times, engine and language versions', async () => {
+    const state = (await owner.call('get', `/api/notebooks/${nb.id}/review`)).body;
+    expect(record).toMatchObject({
+      notebookId: nb.id,
+      notebookRevision: nb.revision,
+      revisionDigest: state.revisionDigest,
+      digestVersion: 'cribra-revision-v1',
+      requiredSignoffs: 2,
+    });
+    expect(record.signers).toHaveLength(2);
+    for (const s of record.signers) expect(Date.parse(s.signedAt)).toBeLessThanOrEqual(Date.parse(record.lockedAt));
+    expect(record.engineVersion).toMatch(/^\d+\.\d+\.\d+/);
+    expect(record.languageVersion).toMatch(/^\d+\.\d+\.\d+/);
+    expect(record.runEngineVersions.length).toBeGreaterThan(0);
+    expect(record.cells.map((c) => c.id)).toEqual(nb.cells.map((c) => c.id));
+    expect(record.cells.filter((c) => c.outputDigest)).toHaveLength(2);
+    expect((await viewer.call('get', `/api/notebooks/${nb.id}/lock`)).body).toEqual(record);
+  });
+
+  it('exports the record as JSON and as Markdown saying what was checked and that evidence is not proof', async () => {
+    const json = await viewer.call('get', `/api/notebooks/${nb.id}/lock/export?format=json`);
+    expectStatus(json, 200);
+    expect(json.headers['content-type']).toMatch(/application\/json/);
+    expect(json.headers['content-disposition']).toMatch(/attachment; filename="lock-record-.*\.json"/);
+    expect(JSON.parse(json.text)).toEqual(record);
+    const md = await viewer.call('get', `/api/notebooks/${nb.id}/lock/export?format=markdown`);
+    expectStatus(md, 200);
+    expect(md.headers['content-type']).toMatch(/text\/markdown/);
+    expect(md.text).toContain('Computed evidence is not a proof');
+    expect(md.text).toContain('## What was checked');
+    expect(md.text).toContain(record.revisionDigest);
+    for (const c of nb.cells) expect(md.text).toContain(c.source);
+    expectStatus(await viewer.call('get', `/api/notebooks/${nb.id}/lock/export?format=pdf`), 400);
+    const audit = (await owner.call('get', `/api/notebooks/${nb.id}/audit`)).body.map((e: { action: string }) => e.action);
+    expect(audit).toEqual(expect.arrayContaining(['notebook.lock', 'export.lock_json', 'export.lock_markdown']));
+  });
+
+  it('refuses every change through the API with 409 notebook_locked', async () => {
+    const cell = nb.cells[0];
+    const attempts: Array<[Parameters<Client['call']>[0], string, object?]> = [
+      ['put', `/api/cells/${cell.id}`, { revision: cell.revision, source: 'show 0' }],
+      ['delete', `/api/cells/${cell.id}?revision=${cell.revision}`],
+      ['post', `/api/notebooks/${nb.id}/cells`, { kind: 'note', source: 'late note' }],
+      ['put', `/api/notebooks/${nb.id}/cells/order`, { revision: nb.revision, cellIds: nb.cells.map((c) => c.id).reverse() }],
+      ['patch', `/api/notebooks/${nb.id}`, { revision: nb.revision, title: 'renamed' }],
+      ['delete', `/api/notebooks/${nb.id}`],
+      ['post', `/api/cells/${cell.id}/runs`],
+      ['post', `/api/notebooks/${nb.id}/runs`],
+      ['post', `/api/notebooks/${nb.id}/threads`, { anchor: { kind: 'notebook' }, body: 'late comment' }],
+      ['post', `/api/notebooks/${nb.id}/verifications`],
+      ['post', `/api/notebooks/${nb.id}/lock`],
+    ];
+    for (const [method, path, body] of attempts) {
+      const res = await owner.call(method, path, body);
+      if (res.status !== 409) throw new Error(`${method} ${path}: expected 409, got ${res.status} ${JSON.stringify(res.body)}`);
+      expect(res.body.details).toEqual({ reason: 'notebook_locked', notebookId: nb.id });
+    }
+    expect((await owner.call('get', `/api/notebooks/${nb.id}`)).body.revision).toBe(nb.revision);
+  });
+
+  it('is refused by the database trigger on direct SQL changes', async () => {
+    const cell = nb.cells[0];
+    const runId = record.cells[0].runId;
+    expect(await sqlFails(`UPDATE cells SET source = 'show 0' WHERE id = $1`, [cell.id])).toBe('CRLCK');
+    expect(await sqlFails(`DELETE FROM cells WHERE id = $1`, [cell.id])).toBe('CRLCK');
+    expect(await sqlFails(`INSERT INTO cells (notebook_id, kind, source, position, author_id) SELECT notebook_id, 'note', 'x', 99, author_id FROM cells WHERE id = $1`, [cell.id])).toBe('CRLCK');
+    expect(await sqlFails(`UPDATE runs SET output_digest = $2 WHERE id = $1`, [runId, '0'.repeat(64)])).toBe('CRLCK');
+    expect(await sqlFails(`DELETE FROM runs WHERE id = $1`, [runId])).toBe('CRLCK');
+    expect(await sqlFails(`UPDATE reviews SET voided_at = now() WHERE notebook_id = $1`, [nb.id])).toBe('CRLCK');
+    expect(await sqlFails(`DELETE FROM reviews WHERE notebook_id = $1`, [nb.id])).toBe('CRLCK');
+    expect(await sqlFails(`UPDATE notebooks SET title = 'x' WHERE id = $1`, [nb.id])).toBe('CRLCK');
+    expect(await sqlFails(`UPDATE notebooks SET status = 'draft' WHERE id = $1`, [nb.id])).toBe('CRLCK');
+    expect(await sqlFails(`DELETE FROM notebooks WHERE id = $1`, [nb.id])).toBe('CRLCK');
+    expect(await sqlFails(`UPDATE notebook_locks SET revision_digest = $2 WHERE notebook_id = $1`, [nb.id, '0'.repeat(64)])).toBe('CRLCK');
+    const [{ source }] = await db.query(`SELECT source FROM cells WHERE id = $1`, [cell.id]);
+    expect(source).toBe(cell.source);
+  });
+
+  it('can be checked by any member by re-running it against the record', async () => {
+    const res = await viewer.call('post', `/api/notebooks/${nb.id}/lock/checks`);
+    expectStatus(res, 202);
+    const v = await waitVerification(viewer, res.body.id);
+    expect(v).toMatchObject({ purpose: 'lock', revisionDigest: record.revisionDigest, allSame: true });
+    expect(v.counts).toMatchObject({ same: 2, skipped: 1 });
+    // The check left the record and the notebook as they were.
+    expect((await owner.call('get', `/api/notebooks/${nb.id}/lock`)).body).toEqual(record);
+    expect((await owner.call('get', `/api/notebooks/${nb.id}/review`)).body.revisionDigest).toBe(record.revisionDigest);
+  });
+
+  it('duplicates into a new editable draft owned by whoever duplicates it', async () => {
+    const res = await viewer.call('post', `/api/notebooks/${nb.id}/duplicate`, {});
+    expectStatus(res, 201);
+    created.push(res.body.id);
+    const copy: NotebookView = (await viewer.call('get', `/api/notebooks/${res.body.id}`)).body;
+    expect(copy).toMatchObject({ status: 'draft', myRole: 'owner', title: `${nb.title} (copy)`, requiredSignoffs: 2 });
+    expect(copy.cells.map((c) => [c.kind, c.source])).toEqual(nb.cells.map((c) => [c.kind, c.source]));
+    expect(copy.cells[0].latestRun?.outputDigest).toBe(record.cells[0].outputDigest);
+    const edit = await viewer.call('put', `/api/cells/${copy.cells[0].id}`, { revision: copy.cells[0].revision, source: 'show 5' });
+    expectStatus(edit, 200);
+    expect((await owner.call('get', `/api/notebooks/${nb.id}`)).body.status).toBe('locked');
+  });
+
+  it('only the documented maintenance setting lets teardown delete it', async () => {
+    const extra = await signedOff(owner);
+    expectStatus(await owner.call('post', `/api/notebooks/${extra.nb.id}/lock`), 201);
+    expect(await sqlFails(`DELETE FROM notebooks WHERE id = $1`, [extra.nb.id])).toBe('CRLCK');
+    await deleteNotebooks(app, [extra.nb.id]);
+    expect(await db.query(`SELECT 1 FROM notebooks WHERE id = $1`, [extra.nb.id])).toHaveLength(0);
+  });
+});
