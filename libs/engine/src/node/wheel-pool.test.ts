@@ -8,7 +8,7 @@ import { runWheelChunksParallel, streamLevelParallel } from './wheel-pool';
 describe('wheel pool (worker threads)', () => {
   it('streams 19# over 17# on 2 workers and matches the in-memory scan (histogram, quadruples, first positions)', async () => {
     let calls = 0;
-    const t = await streamLevelParallel(19, 4, { workers: 2, chunksPerWorker: 3, onProgress: () => calls++ });
+    const t = await streamLevelParallel(19, 4, { workers: 2, chunksPerWorker: 3, firstPositions: true, onProgress: () => calls++ });
     const scan = scanGapCycle(wheelGaps(19), [4]);
     expect(calls).toBe(6);
     expect(t.maxGap).toBe(34);

@@ -81,12 +81,12 @@ export async function runWheelChunksParallel(specs: readonly WheelChunkSpec[], o
 export async function streamLevelParallel(
   target: number,
   patternLength: 1 | 2 | 3 | 4,
-  options: WheelPoolOptions & { radix?: number } = {},
+  options: WheelPoolOptions & { radix?: number; firstPositions?: boolean } = {},
 ): Promise<WheelChunkTally> {
   checkLevel(target, 41);
   const base = Math.min(previousPrime(target), MAX_MEMORY_LEVEL);
   const workers = options.workers ?? availableParallelism();
-  const specs = planWheelChunks(base, target, workers * (options.chunksPerWorker ?? 8), patternLength, options.radix);
+  const specs = planWheelChunks(base, target, workers * (options.chunksPerWorker ?? 8), patternLength, options.radix, options.firstPositions ?? false);
   return runWheelChunksParallel(specs, options);
 }
 

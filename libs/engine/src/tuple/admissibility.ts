@@ -35,23 +35,29 @@ export function admissibility(values: ReadonlyArray<number | bigint | string>): 
   const primes = primesUpTo(k);
   const witness: Record<number, number> = {};
   if (primes.length === 0) return { admissible: true, k, diameter, witness };
-  const diffs = new Float64Array(k);
-  for (let i = 1; i < k; i++) diffs[i] = h[i]! - h[i - 1]!;
   const stamp = new Int32Array(primes[primes.length - 1]! + 1);
+  // Residues advance by the differences of consecutive offsets: no division in the inner loop.
+  // Integer arithmetic when the diameter fits 31 bits (always, in practice), doubles otherwise.
+  const small = diameter < 2 ** 31;
+  const diffs = small ? new Int32Array(k) : new Float64Array(k);
+  for (let i = 1; i < k; i++) diffs[i] = h[i]! - h[i - 1]!;
+  // A membership bitmap lets a prime q be settled by probing candidate residues w = 0, 1, …:
+  // w is free when none of w, w + q, w + 2q, … ≤ diameter is in H (diameter/q probes). For large q
+  // free residues abound, so this is far cheaper than marking all k offsets; a probe budget of k
+  // per prime falls back to marking when residues are nearly all covered.
+  const member = diameter <= BITMAP_LIMIT ? new Uint8Array(diameter + 1) : null;
+  if (member) for (const x of h) member[x] = 1;
   for (let pi = 0; pi < primes.length; pi++) {
     const q = primes[pi]!;
-    const mark = pi + 1;
-    let r = 0;
-    let covered = 0;
-    for (let i = 0; i < k; i++) {
-      const d = diffs[i]!;
-      r += d < q ? d : d % q;
-      if (r >= q) r -= q;
-      if (stamp[r] !== mark) {
-        stamp[r] = mark;
-        if (++covered === q) break;
+    if (member) {
+      const w = probeFree(member, q, k);
+      if (w >= 0) {
+        witness[q] = w;
+        continue;
       }
     }
+    const mark = pi + 1;
+    const covered = small ? markInt(diffs as Int32Array, q, stamp, mark) : markFloat(diffs as Float64Array, q, stamp, mark);
     if (covered === q) {
       const all = Array.from({ length: q }, (_, j) => j);
       return { admissible: false, k, diameter, obstruction: { prime: q, covered: all } };
@@ -66,4 +72,57 @@ export function admissibility(values: ReadonlyArray<number | bigint | string>): 
 /** True when the tuple is admissible (see {@link admissibility}). @throws EngineError(input) for an invalid tuple. */
 export function isAdmissible(values: ReadonlyArray<number | bigint | string>): boolean {
   return admissibility(values).admissible;
+}
+
+/** Largest diameter for which the probing bitmap is used (64 MB). */
+const BITMAP_LIMIT = 1 << 26;
+
+/**
+ * The least residue w mod q with no offset ≡ w, by probing the membership bitmap; −1 when the probe
+ * budget runs out (or every residue is covered).
+ */
+function probeFree(member: Uint8Array, q: number, budget: number): number {
+  const D = member.length;
+  let spent = 0;
+  for (let w = 0; w < q; w++) {
+    let x = w;
+    while (x < D && member[x] === 0) x += q;
+    if (x >= D) return w;
+    spent += Math.ceil((x - w + 1) / q);
+    if (spent > budget) return -1;
+  }
+  return -1;
+}
+
+/** Marks h mod q for all offsets (given by differences, integer path); returns residues covered (stops at q). */
+function markInt(diffs: Int32Array, q: number, stamp: Int32Array, mark: number): number {
+  let r = 0;
+  let covered = 0;
+  const k = diffs.length;
+  for (let i = 0; i < k; i++) {
+    const d = diffs[i]!;
+    r += d < q ? d : d % q;
+    if (r >= q) r -= q;
+    if (stamp[r] !== mark) {
+      stamp[r] = mark;
+      if (++covered === q) break;
+    }
+  }
+  return covered;
+}
+
+/** As {@link markInt} for diameters ≥ 2^31 (double arithmetic, exact below 2^53). */
+function markFloat(diffs: Float64Array, q: number, stamp: Int32Array, mark: number): number {
+  let r = 0;
+  let covered = 0;
+  for (let i = 0; i < diffs.length; i++) {
+    const d = diffs[i]!;
+    r += d < q ? d : d % q;
+    if (r >= q) r -= q;
+    if (stamp[r] !== mark) {
+      stamp[r] = mark;
+      if (++covered === q) break;
+    }
+  }
+  return covered;
 }

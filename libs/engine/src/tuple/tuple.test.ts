@@ -59,6 +59,12 @@ describe('admissibility', () => {
     expect(isAdmissible([0, 2, 6, 8, 12, 14])).toBe(false); // covers 0…4 mod 5
     expect(admissibility([0, 2, 6, 8, 12, 14])).toMatchObject({ obstruction: { prime: 5 } });
   });
+  it('handles huge diameters without a bitmap (offsets up to 2^53 − 1)', () => {
+    // 2^40 ≡ 1 (mod 3): {0, 2, 2^40} meets 0, 2, 1 mod 3; 2^40 + 2 ≡ 0 leaves class 1 free
+    expect(admissibility([0, 2, 2 ** 40])).toMatchObject({ admissible: false, obstruction: { prime: 3, covered: [0, 1, 2] } });
+    expect(admissibility([0, 2, 2 ** 40 + 2])).toEqual({ admissible: true, k: 3, diameter: 2 ** 40 + 2, witness: { 2: 1, 3: 1 } });
+    expect(admissibility([-(2 ** 52), 2 ** 52 - 1, 7]).diameter).toBe(2 ** 53 - 1);
+  });
   it('agrees with a brute-force check on random tuples (fast-check)', () => {
     fc.assert(
       fc.property(fc.uniqueArray(fc.integer({ min: -60, max: 60 }), { minLength: 1, maxLength: 14 }), (xs) => {

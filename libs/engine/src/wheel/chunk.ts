@@ -23,6 +23,8 @@ export interface WheelChunkSpec {
   readonly patternLength: 1 | 2 | 3 | 4;
   /** half-gap bound of the dense tallies (gaps ≤ 2·radix − 2); default {@link defaultChunkRadix}. */
   readonly radix?: number;
+  /** also record the first position of each gap (a second pass over copies meeting a new gap); default false */
+  readonly firstPositions?: boolean;
 }
 
 /**
@@ -62,7 +64,9 @@ export function chunkCopies(base: number, target: number): number {
  * equal size (at most one per copy of the base cycle).
  * @throws EngineError(input) for levels that are not primes with base < target, base > 23 or target > 41.
  */
-export function planWheelChunks(base: number, target: number, count: number, patternLength: 1 | 2 | 3 | 4 = 2, radix?: number): WheelChunkSpec[] {
+export function planWheelChunks(
+  base: number, target: number, count: number, patternLength: 1 | 2 | 3 | 4 = 2, radix?: number, firstPositions = false,
+): WheelChunkSpec[] {
   checkSpecLevels(base, target);
   const copies = chunkCopies(base, target);
   const n = Math.max(1, Math.min(copies, Math.floor(count)));
@@ -70,7 +74,7 @@ export function planWheelChunks(base: number, target: number, count: number, pat
   for (let i = 0; i < n; i++) {
     const copyFrom = Math.floor((i * copies) / n);
     const copyTo = Math.floor(((i + 1) * copies) / n);
-    if (copyTo > copyFrom) out.push(radix === undefined ? { base, target, copyFrom, copyTo, patternLength } : { base, target, copyFrom, copyTo, patternLength, radix });
+    if (copyTo > copyFrom) out.push({ base, target, copyFrom, copyTo, patternLength, ...(radix === undefined ? {} : { radix }), ...(firstPositions ? { firstPositions } : {}) });
   }
   return out;
 }
@@ -140,12 +144,7 @@ export function runWheelChunk(spec: WheelChunkSpec, baseGaps: Uint8Array): Wheel
     throw inputError(`chunk copies [${copyFrom}, ${copyTo}) are not inside [0, ${copies})`);
   }
   const n = baseGaps.length;
-  let B = 0; // base# = sum of the base gaps
-  let maxBase = 0;
-  for (let j = 0; j < n; j++) {
-    B += baseGaps[j]!;
-    if (baseGaps[j]! > maxBase) maxBase = baseGaps[j]!;
-  }
+  const B = cycleLength(baseGaps); // base# = sum of the base gaps
   // removal table modulo M = product of the removed primes
   const removedPrimes: number[] = [];
   for (let q = base + 1; q <= target; q++) if (isSmallPrime(q)) removedPrimes.push(q);
@@ -183,6 +182,7 @@ export function runWheelChunk(spec: WheelChunkSpec, baseGaps: Uint8Array): Wheel
   // walk state: pos, acc, p1, p2, p3 (the last three half-gaps, S: none yet), maxGap
   const st = Float64Array.of(pos, 0, S, S, S);
   const seen = new Uint8Array(S);
+  const wantFirst = spec.firstPositions === true;
   const dummy = new Float64Array(1);
   let steps = j;
   for (let c = copyFrom; c < copyTo; c++) {
@@ -192,12 +192,12 @@ export function runWheelChunk(spec: WheelChunkSpec, baseGaps: Uint8Array): Wheel
       tab[x] = removed[y >= M ? y - M : y]!;
     }
     st[1] = acc;
-    const before = seen.slice();
+    const before = wantFirst ? seen.slice() : seen;
     const bad = walkCopy(baseGaps, res, tab, j, hist, pats ?? dummy, L, R, S, st);
     if (bad > 0) throw limitError(`gap ${bad} at level ${target} is above the tally bound ${2 * S - 2}`);
     // first positions: only copies that met a new gap value need the second pass
     let fresh = false;
-    for (let h = 0; h < S; h++) if (hist[h]! > 0 && before[h] === 0) fresh = true;
+    if (wantFirst) for (let h = 0; h < S; h++) if (hist[h]! > 0 && before[h] === 0) fresh = true;
     if (fresh) {
       firstPositions(baseGaps, res, tab, j, pos, acc, first, S);
       for (let h = 0; h < S; h++) if (hist[h]! > 0) seen[h] = 1;
@@ -229,7 +229,7 @@ export function runWheelChunk(spec: WheelChunkSpec, baseGaps: Uint8Array): Wheel
     const h = acc >> 1;
     if (h >= S) throw limitError(`gap ${acc} at level ${target} is above the tally bound ${2 * S - 2}`);
     if (gapStart < hi) {
-      if (first[h]! < 0) first[h] = gapStart;
+      if (wantFirst && first[h]! < 0) first[h] = gapStart;
       hist[h]!++;
       if (acc > maxGap) maxGap = acc;
     }
@@ -249,6 +249,18 @@ export function runWheelChunk(spec: WheelChunkSpec, baseGaps: Uint8Array): Wheel
   out.maxGap = maxGap;
   out.steps = steps;
   return out;
+}
+
+const lengthCache = new WeakMap<Uint8Array, number>();
+
+/** Sum of a gap cycle (its modulus), cached per array. */
+function cycleLength(gaps: Uint8Array): number {
+  const hit = lengthCache.get(gaps);
+  if (hit !== undefined) return hit;
+  let B = 0;
+  for (let j = 0; j < gaps.length; j++) B += gaps[j]!;
+  lengthCache.set(gaps, B);
+  return B;
 }
 
 const residueCache = new Map<string, Uint16Array>();

@@ -29,14 +29,16 @@ export const DEFAULT_STREAM_STEPS = 2e9;
 
 /**
  * Streams level `target` over the in-memory level 23 (or the previous level when target ≤ 23) in one
- * thread and returns the combined tallies.
+ * thread and returns the combined tallies (first positions only when asked: they cost a second pass).
  * @throws EngineError(limit) when the walk would exceed `maxSteps` base steps.
  */
-export function streamLevel(target: number, patternLength: 1 | 2 | 3 | 4, maxSteps = DEFAULT_STREAM_STEPS, radix?: number): WheelChunkTally {
+export function streamLevel(
+  target: number, patternLength: 1 | 2 | 3 | 4, maxSteps = DEFAULT_STREAM_STEPS, radix?: number, firstPositions = false,
+): WheelChunkTally {
   checkLevel(target, 41);
   const base = Math.min(previousPrime(target), MAX_MEMORY_LEVEL);
   const gaps = wheelGaps(base);
-  const specs = planWheelChunks(base, target, 64, patternLength, radix);
+  const specs = planWheelChunks(base, target, 64, patternLength, radix, firstPositions);
   const copies = specs[specs.length - 1]!.copyTo;
   if (copies * gaps.length > maxSteps) {
     throw limitError(`streaming level ${target} takes ${copies * gaps.length} steps, above the limit ${maxSteps} (use the parallel driver)`);
@@ -70,7 +72,7 @@ function shorterPatterns(t: WheelChunkTally): Map<number, PatternTally> {
  */
 export function levelQuadTally(P: number, maxSteps = DEFAULT_STREAM_STEPS): PatternTally {
   if (P <= MAX_MEMORY_LEVEL) return scanGapCycle(wheelGaps(P), [4]).patterns.get(4)!;
-  const t = streamLevel(P, 4, maxSteps, 40);
+  const t = streamLevel(P, 4, maxSteps, histogramMaxGap(gapHistogram(P, maxSteps)) / 2 + 1);
   return patternsFromDense(t.patterns!, 4, t.radix + 1, t.radix);
 }
 
@@ -141,7 +143,7 @@ export function wheelLevelStats(p: number, patternLengths: readonly number[] = [
     return { prime: p, modulus: primorial(p), members: primorialTotient(p), ...s };
   }
   const L = Math.max(1, ...patternLengths) as 1 | 2 | 3 | 4;
-  const t = streamLevel(p, L, 4e9);
+  const t = streamLevel(p, L, 4e9, undefined, true);
   const all = shorterPatterns(t);
   const patterns = new Map<number, PatternTally>();
   for (const len of patternLengths) patterns.set(len, all.get(len)!);

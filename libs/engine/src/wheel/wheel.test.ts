@@ -110,7 +110,7 @@ describe('streamed chunks', () => {
       const scan = scanGapCycle(wheelGaps(target), [2, 3, 4]);
       for (const L of [1, 2, 3, 4] as const) {
         for (const count of [1, 5]) {
-          const t = combineWheelChunks(planWheelChunks(base, target, count, L).map((s) => runWheelChunk(s, wheelGaps(base))));
+          const t = combineWheelChunks(planWheelChunks(base, target, count, L, undefined, true).map((s) => runWheelChunk(s, wheelGaps(base))));
           expect(t.maxGap).toBe(scan.maxGap);
           expect(patternsFromDense(t.histogram, 1, t.radix).size).toBe(scan.histogram.size);
           for (const [g, v] of scan.histogram) expect(BigInt(t.histogram[g / 2]!)).toBe(v);

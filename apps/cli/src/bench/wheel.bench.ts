@@ -1,0 +1,50 @@
+// Wheel benchmarks (figures, not tests): called by the bench runner; prints nothing itself.
+import {
+  admissibility, clearWheelCache, cycleHistogramAndPairSums, gapHistogram, histogramByCounts, planWheelChunks,
+  primesUpTo, wheelGaps,
+} from '@cribra/engine';
+import { gapHistogramParallel, runWheelChunksParallel } from '@cribra/engine/node';
+
+async function time<T>(fn: () => T | Promise<T>): Promise<{ value: T; seconds: number }> {
+  const t0 = performance.now();
+  const value = await fn();
+  return { value, seconds: (performance.now() - t0) / 1000 };
+}
+
+const s = (x: number) => `${x.toFixed(x < 10 ? 2 : 1)} s`;
+
+/**
+ * Wheel figures: 23# enumeration, 29#/31#/37# histograms (recursions and the 2-worker driver),
+ * the 37# histogram by inclusion–exclusion alone, an estimate of streaming all 3.07·10^10 members
+ * of 31# with pair tallies on 2 workers, and admissibility of a 34 429-tuple.
+ */
+export async function benchWheel(): Promise<Array<{ name: string; figure: string }>> {
+  const out: Array<{ name: string; figure: string }> = [];
+  clearWheelCache();
+  wheelGaps(19);
+  const e23 = await time(() => wheelGaps(23));
+  out.push({ name: '23# gap cycle (36 495 360 gaps, from 19#)', figure: s(e23.seconds) });
+  const h23 = await time(() => cycleHistogramAndPairSums(e23.value));
+  out.push({ name: '23# histogram + pair sums (one scan)', figure: s(h23.seconds) });
+  const h29 = await time(() => gapHistogram(29));
+  out.push({ name: '29# histogram (recursion over one scan of 23#)', figure: s(h29.seconds) });
+  const h31 = await time(() => gapHistogram(31));
+  out.push({ name: '31# histogram (recursion; pair tally from 23# quadruples)', figure: s(h31.seconds) });
+  const h37 = await time(() => gapHistogramParallel(37, { workers: 2 }));
+  const max37 = Math.max(...h37.value.keys());
+  out.push({ name: `37# histogram, 2 workers (streams 29# quadruples; max gap ${max37})`, figure: s(h37.seconds) });
+  const c37 = await time(() => histogramByCounts(37));
+  const same = [...c37.value].every(([g, v]) => h37.value.get(g) === v) && c37.value.size === h37.value.size;
+  out.push({ name: `37# histogram by inclusion–exclusion (${same ? 'equal' : 'DIFFERENT'})`, figure: s(c37.seconds) });
+  // streaming 31# itself with pair tallies: measure 16 of 899 copies on 2 workers, extrapolate
+  const specs = planWheelChunks(23, 31, 899, 2).slice(0, 16);
+  const part = await time(() => runWheelChunksParallel(specs, { workers: 2 }));
+  out.push({ name: '31# full stream with pair tallies, 2 workers (estimate from 16/899 copies)', figure: s((part.seconds * 899) / 16) });
+  // a 34 429-tuple: the 34 429 primes following 34 429 (admissible: no member is 0 mod q ≤ k)
+  const primes = primesUpTo(500_000);
+  const start = primes.findIndex((p) => p > 34_429);
+  const tuple = Array.from(primes.subarray(start, start + 34_429));
+  const adm = await time(() => admissibility(tuple));
+  out.push({ name: `admissibility of a 34 429-tuple (diameter ${adm.value.diameter}, ${adm.value.admissible ? 'admissible' : 'not admissible'})`, figure: s(adm.seconds) });
+  return out;
+}
