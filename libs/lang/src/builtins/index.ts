@@ -6,3 +6,4 @@ import './primes';
 import './counts';
 import './hl';
 import './narrow';
+import './data';

@@ -103,7 +103,8 @@ export function pow(a: Value, b: Value, span: SourceSpan, maxBits: number): Num 
   const absN = n < 0n ? -n : n;
   if (absN > 1n || d > 1n) {
     const bits = Math.max(bitLength(absN), bitLength(d)) * Number(e);
-    checkBits(e > BigInt(maxBits) ? Infinity : bits, maxBits, 'the power', span);
+    if (e > BigInt(maxBits)) throw limitError(`the power would have more than ${maxBits} bits; the limit is ${maxBits} bits`, span);
+    checkBits(bits, maxBits, 'the power', span);
   }
   const pn = n ** e;
   const pd = d ** e;
