@@ -338,3 +338,59 @@ function firstPositions(gaps: Uint8Array, res: Uint16Array, tab: Uint8Array, j0:
     }
   }
 }
+
+/** Plain-JSON form of a chunk tally (dense arrays as sparse [index, count] pairs) for queues and files. */
+export interface WheelChunkTallyJson {
+  readonly target: number;
+  readonly radix: number;
+  readonly patternLength: number;
+  readonly histogram: Array<[number, number]>;
+  readonly patterns: Array<[number, number]> | null;
+  readonly firstPosition: Array<[number, number]>;
+  readonly maxGap: number;
+  readonly steps: number;
+}
+
+function sparse(a: Float64Array, skip: number): Array<[number, number]> {
+  const out: Array<[number, number]> = [];
+  for (let i = 0; i < a.length; i++) if (a[i] !== skip) out.push([i, a[i]!]);
+  return out;
+}
+
+/** Encodes a chunk tally as plain JSON-safe data (counts are exact integers < 2^53). */
+export function wheelChunkTallyToJson(t: WheelChunkTally): WheelChunkTallyJson {
+  return {
+    target: t.target,
+    radix: t.radix,
+    patternLength: t.patternLength,
+    histogram: sparse(t.histogram, 0),
+    patterns: t.patterns ? sparse(t.patterns, 0) : null,
+    firstPosition: sparse(t.firstPosition, -1),
+    maxGap: t.maxGap,
+    steps: t.steps,
+  };
+}
+
+/**
+ * Decodes {@link wheelChunkTallyToJson}.
+ * @throws EngineError(input) when an index lies outside the tally or a count is not a safe integer.
+ */
+export function wheelChunkTallyFromJson(j: WheelChunkTallyJson): WheelChunkTally {
+  const t = emptyChunkTally(j.target, j.patternLength, j.radix);
+  const fill = (a: Float64Array | null, pairs: Array<[number, number]> | null, name: string) => {
+    if (!pairs) return;
+    if (!a) throw inputError(`chunk tally of length ${j.patternLength} has no ${name}`);
+    for (const [i, v] of pairs) {
+      if (!Number.isInteger(i) || i < 0 || i >= a.length || !Number.isSafeInteger(v)) {
+        throw inputError(`chunk tally ${name} entry [${i}, ${v}] is out of range`);
+      }
+      a[i] = v;
+    }
+  };
+  fill(t.histogram, j.histogram, 'histogram');
+  fill(t.patterns, j.patterns, 'patterns');
+  fill(t.firstPosition, j.firstPosition, 'first positions');
+  t.maxGap = j.maxGap;
+  t.steps = j.steps;
+  return t;
+}

@@ -4,7 +4,7 @@ import { histogramByCounts } from '../counts/enumerated';
 import {
   combineWheelChunks, cycleHistogramAndPairSums, gapHistogram, histogramMaxGap, nextHistogram, nextPairTally,
   pairSums, patternsFromDense, planWheelChunks, primorial, primorialTotient, runWheelChunk, scanGapCycle,
-  wheelGaps, wheelLevel, wheelLevelStats, wheelMembers, type GapHistogram,
+  wheelChunkTallyFromJson, wheelChunkTallyToJson, wheelGaps, wheelLevel, wheelLevelStats, wheelMembers, type GapHistogram,
 } from './index';
 
 const LEVELS = [2, 3, 5, 7, 11, 13, 17, 19, 23];
@@ -119,6 +119,12 @@ describe('streamed chunks', () => {
         }
       }
     }
+  });
+  it('round-trip through JSON (for runner processes)', () => {
+    const [a, b] = planWheelChunks(5, 11, 2, 3, undefined, true).map((s) => runWheelChunk(s, wheelGaps(5)));
+    const back = combineWheelChunks([a!, b!].map((t) => wheelChunkTallyFromJson(JSON.parse(JSON.stringify(wheelChunkTallyToJson(t))))));
+    expect(back).toEqual(combineWheelChunks([a!, b!]));
+    expect(() => wheelChunkTallyFromJson({ ...wheelChunkTallyToJson(a!), histogram: [[999, 1]] })).toThrow(/out of range/);
   });
   it('rejects chunk ranges outside the period', () => {
     expect(() => runWheelChunk({ base: 7, target: 13, copyFrom: 0, copyTo: 200, patternLength: 1 }, wheelGaps(7))).toThrow(/not inside \[0, 143\)/);
