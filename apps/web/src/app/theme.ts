@@ -29,6 +29,7 @@ export const theme = createTheme({
       styleOverrides: {
         body: { fontVariantNumeric: 'tabular-nums' },
         'code, pre, kbd, .mono': { fontFamily: monoFont },
+        '.visually-hidden': { position: 'absolute', width: 1, height: 1, overflow: 'hidden', clip: 'rect(0 0 0 0)', whiteSpace: 'nowrap' },
       },
     },
     MuiPaper: {

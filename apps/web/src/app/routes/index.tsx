@@ -12,6 +12,7 @@ const SignUpPage = lazy(() => import('../../features/auth/pages/sign-up-page'));
 const ResetPasswordPage = lazy(() => import('../../features/auth/pages/reset-password-page'));
 const ResetRoute = lazy(() => import('./reset-route'));
 const NotebooksPage = lazy(() => import('../../features/notebooks/pages/notebooks-page'));
+const NotebookPage = lazy(() => import('../../features/notebooks/pages/notebook-page'));
 const DataPage = lazy(() => import('../../features/data/pages/data-page'));
 const AccountPage = lazy(() => import('../../features/account/pages/account-page'));
 const AdminUsersPage = lazy(() => import('../../features/admin/pages/admin-users-page'));
@@ -47,6 +48,7 @@ export const routes: RouteObject[] = [
     children: [
       { path: '/', element: <Navigate to="/notebooks" replace /> },
       { path: '/notebooks', element: <NotebooksPage /> },
+      { path: '/notebooks/:id', element: <NotebookPage /> },
       { path: '/data', element: <DataPage /> },
       { path: '/account', element: <AccountPage /> },
       { path: '/admin/users', element: <RequireAdmin><AdminUsersPage /></RequireAdmin> },

@@ -1,0 +1,46 @@
+import DOMPurify from 'dompurify';
+import katex from 'katex';
+import { Marked, type TokenizerAndRendererExtension } from 'marked';
+
+const tex = (text: string, displayMode: boolean) =>
+  katex.renderToString(text, { displayMode, throwOnError: false, output: 'htmlAndMathml', trust: false });
+
+// `$$ … $$` on its own lines: display maths.
+const blockMath: TokenizerAndRendererExtension = {
+  name: 'blockMath',
+  level: 'block',
+  start: (src) => src.match(/^\$\$/m)?.index,
+  tokenizer(src) {
+    const m = /^\$\$([\s\S]+?)\$\$[^\n]*(?:\n|$)/.exec(src);
+    if (m) return { type: 'blockMath', raw: m[0], text: m[1].trim() };
+    return undefined;
+  },
+  renderer: (token) => `<div class="note-math">${tex(token.text as string, true)}</div>`,
+};
+
+// `$ … $` inside a line: inline maths. A `$` followed by a space or a digit run like "$5" is not maths.
+const inlineMath: TokenizerAndRendererExtension = {
+  name: 'inlineMath',
+  level: 'inline',
+  start: (src) => {
+    const i = src.indexOf('$');
+    return i < 0 ? undefined : i;
+  },
+  tokenizer(src) {
+    const m = /^\$(?![\s$])((?:\\\$|[^$\n])+?)(?<!\s)\$(?!\d)/.exec(src);
+    if (m) return { type: 'inlineMath', raw: m[0], text: m[1] };
+    return undefined;
+  },
+  renderer: (token) => tex(token.text as string, false),
+};
+
+const marked = new Marked({ gfm: true, breaks: false, extensions: [blockMath, inlineMath] });
+
+/**
+ * A note cell's Markdown with TeX maths as sanitised HTML. Everything the author wrote passes
+ * through DOMPurify after rendering, so raw HTML in a note cannot run script.
+ */
+export function renderNote(markdown: string): string {
+  const html = marked.parse(markdown, { async: false });
+  return DOMPurify.sanitize(html, { USE_PROFILES: { html: true, mathMl: true, svg: true }, ADD_ATTR: ['target'] });
+}

@@ -1,0 +1,43 @@
+import { Box, Chip, Paper, Typography } from '@mui/material';
+import { monoFont, palette } from '../../lib/design-tokens';
+import type { VerdictOutput } from '../../lib/sift-output';
+import { bindingText } from '../../lib/value-text';
+import { checkedRangeText, counterexampleText } from './verdict-text';
+
+/** A claim's verdict: holds on the range checked (evidence, not proof) or fails with its counterexample. */
+export function VerdictCard({ output }: { output: VerdictOutput }) {
+  const colour = output.holds ? palette.holds : palette.fails;
+  return (
+    <Paper
+      component="section"
+      aria-label={`Claim ${output.holds ? 'holds' : 'fails'}`}
+      sx={{ p: 2, borderLeft: `4px solid ${colour}` }}
+    >
+      <Box sx={{ display: 'flex', alignItems: 'center', gap: 1.5, mb: 1 }}>
+        <Chip
+          label={output.holds ? 'HOLDS' : 'FAILS'}
+          size="small"
+          sx={{ bgcolor: colour, color: '#fff', fontWeight: 600, letterSpacing: '0.08em', borderRadius: 1 }}
+        />
+        {output.label && <Typography variant="h4" component="p">{output.label}</Typography>}
+      </Box>
+      <Typography sx={{ fontFamily: monoFont, mb: 1, wordBreak: 'break-word' }}>{output.statement}</Typography>
+      <Typography>{output.summary}</Typography>
+      <Typography color="text.secondary" sx={{ mt: 0.5 }} data-testid="verdict-range">
+        Checked: {checkedRangeText(output)}.
+      </Typography>
+      {!output.holds && output.counterexample && (
+        <Box sx={{ mt: 1.5, p: 1.5, bgcolor: 'rgba(163, 50, 31, 0.06)', borderRadius: 1 }}>
+          <Typography sx={{ fontWeight: 600 }}>Counterexample</Typography>
+          <Typography sx={{ fontFamily: monoFont }}>{bindingText(output.counterexample.binding)}</Typography>
+          <Typography color="text.secondary">{counterexampleText(output.counterexample)}</Typography>
+        </Box>
+      )}
+      {output.holds && (
+        <Typography variant="body2" color="text.secondary" sx={{ mt: 1, fontStyle: 'italic' }}>
+          Computed evidence on the range above only; it is not a proof of the claim beyond it.
+        </Typography>
+      )}
+    </Paper>
+  );
+}

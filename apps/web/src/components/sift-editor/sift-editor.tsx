@@ -1,0 +1,89 @@
+import Editor, { type OnMount } from '@monaco-editor/react';
+import { Box } from '@mui/material';
+import { useEffect, useRef } from 'react';
+import { monoFont } from '../../lib/design-tokens';
+import { siftService } from './lang-adapter';
+import { monaco, SIFT_THEME } from './monaco-offline';
+import { registerSift, SIFT_LANGUAGE_ID, updateDiagnostics } from './register-sift';
+
+registerSift(monaco, siftService);
+
+export interface SiftEditorProps {
+  value: string;
+  onChange: (value: string) => void;
+  /** Ctrl/Cmd+Enter. */
+  onRun?: () => void;
+  /** Ctrl/Cmd+S. */
+  onSave?: () => void;
+  /** Ctrl/Cmd+Alt+N: a new cell below this one. */
+  onAddBelow?: () => void;
+  readOnly?: boolean;
+  /** Accessible name of the editing area. */
+  label: string;
+  /** A model path unique to the cell, so each cell keeps its own undo history. */
+  path: string;
+  language?: string;
+}
+
+const LINE_HEIGHT = 19;
+
+/** Monaco with the Sift mode; grows with its content (3 to 30 lines). Loaded lazily. */
+export default function SiftEditor({ value, onChange, onRun, onSave, onAddBelow, readOnly, label, path, language = SIFT_LANGUAGE_ID }: SiftEditorProps) {
+  // Latest callbacks for the commands registered once at mount.
+  const handlers = useRef({ onRun, onSave, onAddBelow });
+  handlers.current = { onRun, onSave, onAddBelow };
+  const editorRef = useRef<Parameters<OnMount>[0] | null>(null);
+  const lines = Math.min(30, Math.max(3, value.split('\n').length + 1));
+
+  const onMount: OnMount = (editor) => {
+    editorRef.current = editor;
+    const { KeyMod, KeyCode } = monaco;
+    editor.addCommand(KeyMod.CtrlCmd | KeyCode.Enter, () => handlers.current.onRun?.());
+    editor.addCommand(KeyMod.CtrlCmd | KeyCode.KeyS, () => handlers.current.onSave?.());
+    editor.addCommand(KeyMod.CtrlCmd | KeyMod.Alt | KeyCode.KeyN, () => handlers.current.onAddBelow?.());
+    const model = editor.getModel();
+    if (model && language === SIFT_LANGUAGE_ID) updateDiagnostics(monaco, model, siftService);
+  };
+
+  // Diagnostics follow the text, a little after typing stops.
+  useEffect(() => {
+    const model = editorRef.current?.getModel();
+    if (!model || language !== SIFT_LANGUAGE_ID) return;
+    const t = window.setTimeout(() => updateDiagnostics(monaco, model, siftService), 250);
+    return () => window.clearTimeout(t);
+  }, [value, language]);
+
+  return (
+    <Box sx={{ border: 1, borderColor: 'divider', borderRadius: 1, overflow: 'hidden', '&:focus-within': { borderColor: 'primary.main' } }}>
+      <Editor
+        height={lines * LINE_HEIGHT + 8}
+        language={language}
+        path={path}
+        theme={SIFT_THEME}
+        value={value}
+        onChange={(v) => onChange(v ?? '')}
+        onMount={onMount}
+        loading={null}
+        options={{
+          ariaLabel: label,
+          readOnly,
+          minimap: { enabled: false },
+          fontFamily: monoFont,
+          fontSize: 13,
+          lineHeight: LINE_HEIGHT,
+          lineNumbersMinChars: 3,
+          scrollBeyondLastLine: false,
+          wordWrap: 'on',
+          renderLineHighlight: 'line',
+          overviewRulerLanes: 0,
+          tabSize: 2,
+          automaticLayout: true,
+          fixedOverflowWidgets: true,
+          padding: { top: 4, bottom: 4 },
+          scrollbar: { alwaysConsumeMouseWheel: false },
+          tabFocusMode: false,
+        }}
+      />
+    </Box>
+  );
+}

@@ -1,0 +1,38 @@
+import { ACTIVE_RUN_STATUSES, type NotebookEvent, type NotebookView } from '@cribra/contracts';
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect } from 'react';
+import { getRun } from './get-run';
+import { notebookKeys } from './keys';
+import { putCachedRun, updateCachedCells } from './notebook-cache';
+
+/**
+ * Follows GET /api/notebooks/:id/events (server-sent events): run progress goes straight into the
+ * cached cells; a finished run is fetched whole (outputs); a new notebook revision refetches it.
+ */
+export function useNotebookEvents(notebookId: string): void {
+  const qc = useQueryClient();
+  useEffect(() => {
+    if (typeof EventSource === 'undefined') return;
+    const source = new EventSource(`/api/notebooks/${encodeURIComponent(notebookId)}/events`);
+    const onRun = (msg: MessageEvent<string>) => {
+      const event = JSON.parse(msg.data) as Extract<NotebookEvent, { type: 'run' }>;
+      const r = event.run;
+      updateCachedCells(qc, notebookId, (cells) =>
+        cells.map((c) =>
+          c.latestRun?.id === r.id
+            ? { ...c, latestRun: { ...c.latestRun, status: r.status, progress: r.progress, progressNote: r.progressNote, outputDigest: r.outputDigest } }
+            : c,
+        ),
+      );
+      if (!ACTIVE_RUN_STATUSES.includes(r.status)) void getRun(r.id).then((run) => putCachedRun(qc, run));
+    };
+    const onNotebook = (msg: MessageEvent<string>) => {
+      const event = JSON.parse(msg.data) as Extract<NotebookEvent, { type: 'notebook' }>;
+      const cached = qc.getQueryData<NotebookView>(notebookKeys.detail(notebookId));
+      if (!cached || cached.revision < event.revision) void qc.invalidateQueries({ queryKey: notebookKeys.detail(notebookId) });
+    };
+    source.addEventListener('run', onRun);
+    source.addEventListener('notebook', onNotebook);
+    return () => source.close();
+  }, [notebookId, qc]);
+}

@@ -1,0 +1,35 @@
+import type { NotebookView } from '@cribra/contracts';
+import { Box, Button, Chip, Typography } from '@mui/material';
+import type { ReactNode } from 'react';
+import { formatDateTime } from '../../../lib/format';
+import { STATUS_COLOUR, STATUS_LABEL } from '../lib/status-label';
+
+interface Props {
+  notebook: NotebookView;
+  canRun: boolean;
+  runningAll: boolean;
+  onRunAll: () => void;
+  actions?: ReactNode;
+}
+
+export function NotebookHeader({ notebook: nb, canRun, runningAll, onRunAll, actions }: Props) {
+  return (
+    <Box component="header" sx={{ mb: 2 }}>
+      <Box sx={{ display: 'flex', alignItems: 'center', gap: 1.5, flexWrap: 'wrap' }}>
+        <Typography variant="h1" sx={{ flex: 1, minWidth: 280 }}>{nb.title}</Typography>
+        <Chip label={STATUS_LABEL[nb.status]} color={STATUS_COLOUR[nb.status]} />
+        {canRun && (
+          <Button variant="contained" size="medium" onClick={onRunAll} disabled={runningAll}>
+            {runningAll ? 'Queuing…' : 'Run all'}
+          </Button>
+        )}
+        {actions}
+      </Box>
+      {nb.summary && <Typography sx={{ mt: 1, maxWidth: 900 }}>{nb.summary}</Typography>}
+      <Typography variant="caption" color="text.secondary" component="p" className="mono" sx={{ mt: 0.5 }}>
+        rev {nb.revision} · owner {nb.owner.displayName} · my role {nb.myRole ?? 'none (admin)'} · updated {formatDateTime(nb.updatedAt)}
+        {nb.tags.length > 0 && ` · ${nb.tags.join(', ')}`}
+      </Typography>
+    </Box>
+  );
+}

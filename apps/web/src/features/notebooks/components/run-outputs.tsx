@@ -1,0 +1,32 @@
+import type { RunView } from '@cribra/contracts';
+import { Alert, Stack } from '@mui/material';
+import { OutputView } from '../../../components/outputs/output-view';
+
+const ERROR_TITLE: Record<string, string> = {
+  syntax: 'Syntax error',
+  type: 'Type error',
+  runtime: 'Error while running',
+  limit: 'Limit reached',
+  input: 'Bad input',
+  cancelled: 'Cancelled',
+  internal: 'Internal error',
+};
+
+/** The outputs of a finished run, or its error with the source position when there is one. */
+export function RunOutputs({ run }: { run: RunView }) {
+  if (run.status === 'failed' || run.status === 'cancelled') {
+    const e = run.error;
+    return (
+      <Alert severity={run.status === 'cancelled' ? 'info' : 'error'} sx={{ my: 1 }}>
+        <strong>{ERROR_TITLE[e?.kind ?? (run.status === 'cancelled' ? 'cancelled' : 'internal')]}</strong>
+        {e?.line ? ` (line ${e.line}${e.column ? `, column ${e.column}` : ''})` : ''}: {e?.message ?? 'The run stopped.'}
+      </Alert>
+    );
+  }
+  if (!run.outputs?.length) return null;
+  return (
+    <Stack spacing={2} sx={{ my: 1 }}>
+      {run.outputs.map((o, i) => <OutputView key={i} output={o} fileName={`run-${run.id.slice(0, 8)}-${i + 1}`} />)}
+    </Stack>
+  );
+}

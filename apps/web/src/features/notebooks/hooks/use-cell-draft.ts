@@ -1,0 +1,60 @@
+import type { CellView } from '@cribra/contracts';
+import { useQueryClient } from '@tanstack/react-query';
+import { useEffect, useRef, useState } from 'react';
+import { putCachedCell } from '../api/notebook-cache';
+import { staleCell, useUpdateCell } from '../api/update-cell';
+
+/**
+ * The text being edited in one cell, saved with the revision it started from. A stale save (409)
+ * is kept as a conflict until the author keeps their version or takes the saved one.
+ */
+export function useCellDraft(cell: CellView) {
+  const qc = useQueryClient();
+  const [draft, setDraft] = useState(cell.source);
+  const [conflict, setConflict] = useState<CellView | null>(null);
+  const update = useUpdateCell();
+  const dirty = draft !== cell.source;
+  const lastServerSource = useRef(cell.source);
+
+  // Someone else's saved change replaces the text only while there is nothing unsaved here.
+  useEffect(() => {
+    if (cell.source !== lastServerSource.current) {
+      setDraft((d) => (d === lastServerSource.current ? cell.source : d));
+      lastServerSource.current = cell.source;
+    }
+  }, [cell.source]);
+
+  const saveAt = async (revision: number, source: string): Promise<CellView | null> => {
+    try {
+      const saved = await update.mutateAsync({ id: cell.id, body: { revision, source } });
+      lastServerSource.current = saved.source;
+      setConflict(null);
+      return saved;
+    } catch (err) {
+      const current = staleCell(err);
+      if (current) setConflict(current);
+      else throw err;
+      return null;
+    }
+  };
+
+  return {
+    draft,
+    setDraft,
+    dirty,
+    saving: update.isPending,
+    saveError: update.error && !staleCell(update.error) ? update.error : null,
+    conflict,
+    /** Saves unsaved text; resolves to the saved cell, or null when a conflict stopped it. */
+    save: (): Promise<CellView | null> => (dirty ? saveAt(cell.revision, draft) : Promise.resolve(cell)),
+    keepMine: () => (conflict ? saveAt(conflict.revision, draft) : Promise.resolve(null)),
+    takeTheirs: () => {
+      if (!conflict) return;
+      putCachedCell(qc, conflict);
+      lastServerSource.current = conflict.source;
+      setDraft(conflict.source);
+      setConflict(null);
+    },
+    dismissConflict: () => setConflict(null),
+  };
+}

@@ -1,0 +1,51 @@
+import type { NotebookView } from '@cribra/contracts';
+import { Alert, Box } from '@mui/material';
+import type { ReactNode } from 'react';
+import { useParams } from 'react-router-dom';
+import { ErrorState } from '../../../components/error-state';
+import { LoadingState } from '../../../components/loading-state';
+import { useDocumentTitle } from '../../../hooks/use-document-title';
+import { errorMessage } from '../../../lib/api-error';
+import { useCurrentUser } from '../../../lib/current-user';
+import { useNotebook } from '../api/get-notebook';
+import { useRunAll } from '../api/run-all';
+import { useNotebookEvents } from '../api/use-notebook-events';
+import { CellList } from '../components/cell-list';
+import { NotebookHeader } from '../components/notebook-header';
+import { canEditCells, canRun } from '../lib/permissions';
+
+interface Props {
+  /** The collaboration side panel, composed in by the route (features do not import each other). */
+  sidePanel?: (notebook: NotebookView) => ReactNode;
+  /** Extra header actions (export, lock…), composed in by the route. */
+  headerActions?: (notebook: NotebookView) => ReactNode;
+}
+
+export default function NotebookPage({ sidePanel, headerActions }: Props) {
+  const { id = '' } = useParams();
+  const nb = useNotebook(id);
+  const me = useCurrentUser();
+  const runAll = useRunAll(id);
+  useNotebookEvents(id);
+  useDocumentTitle(nb.data?.title ?? 'Notebook');
+
+  if (nb.isPending) return <LoadingState label="Loading the notebook…" />;
+  if (nb.isError) return <ErrorState error={nb.error} title="Could not open this notebook" onRetry={() => nb.refetch()} />;
+  const notebook = nb.data;
+  const who = { myRole: notebook.myRole, status: notebook.status, siteRole: me.data?.siteRole };
+  const panel = sidePanel?.(notebook);
+
+  return (
+    <Box sx={{ display: 'grid', gridTemplateColumns: panel ? 'minmax(0, 1fr) 340px' : 'minmax(0, 1fr)', gap: 3, alignItems: 'start' }}>
+      <Box component="article" aria-label="Notebook">
+        <NotebookHeader notebook={notebook} canRun={canRun(who)} runningAll={runAll.isPending} onRunAll={() => runAll.mutate()} actions={headerActions?.(notebook)} />
+        {notebook.status === 'locked' && (
+          <Alert severity="info" sx={{ mb: 2 }}>This notebook is locked: it opens read-only, as it was signed off.</Alert>
+        )}
+        {runAll.isError && <Alert severity="error" sx={{ mb: 2 }}>{errorMessage(runAll.error)}</Alert>}
+        <CellList notebook={notebook} canEdit={canEditCells(who)} canRun={canRun(who)} />
+      </Box>
+      {panel && <Box component="aside" aria-label="Collaboration" sx={{ position: 'sticky', top: 64 }}>{panel}</Box>}
+    </Box>
+  );
+}
