@@ -1,0 +1,31 @@
+// `cribra admissible`: admissibility of a tuple with its witness or obstruction.
+import { admissibility } from '@cribra/engine';
+import type { Command } from '../command';
+import { groupDigits, toJson } from '../format';
+import { parseFlags } from '../options';
+import { tupleFromFlags } from '../tuple-input';
+
+export const admissibleCommand: Command = {
+  name: 'admissible',
+  summary: 'is a tuple admissible? witness residues or the covering prime',
+  usage: 'cribra admissible (--tuple 0,2,6,8,12 | --file FILE) [--json]',
+  async run(argv, io) {
+    const flags = parseFlags(argv, { tuple: { type: 'string' }, file: { type: 'string' } });
+    const values = tupleFromFlags(flags, 'tuple');
+    const v = admissibility(values);
+    if (v.admissible) {
+      if (flags.json) io.out(toJson({ k: v.k, diameter: v.diameter, admissible: true, witness: v.witness }));
+      else {
+        const w = Object.entries(v.witness).map(([q, r]) => `${r} mod ${q}`);
+        io.out(`admissible ${groupDigits(v.k)}-tuple, diameter ${groupDigits(v.diameter)}\n`);
+        io.out(`uncovered classes: ${w.length ? w.join(', ') : 'none needed (k = 1)'}\n`);
+      }
+    } else if (flags.json) {
+      io.out(toJson({ k: v.k, diameter: v.diameter, admissible: false, obstruction: v.obstruction }));
+    } else {
+      io.out(`not admissible: ${groupDigits(v.k)}-tuple, diameter ${groupDigits(v.diameter)}\n`);
+      io.out(`every class modulo ${v.obstruction.prime} is covered (${v.obstruction.covered.join(', ')})\n`);
+    }
+    return 0;
+  },
+};

@@ -1,0 +1,31 @@
+// `cribra count`: occurrences of a prime constellation pattern among the real primes of a range.
+import { sievePrimeBlockParallel } from '@cribra/engine/node';
+import type { Command } from '../command';
+import { groupDigits, toJson } from '../format';
+import { parseInteger } from '../numbers';
+import { parseFlags, requireFlag, WORKERS_FLAG, workersFlag } from '../options';
+import { tupleFromFlags } from '../tuple-input';
+
+export const countCommand: Command = {
+  name: 'count',
+  summary: 'count n in [from, to] with n + h prime for every h of the pattern',
+  usage: 'cribra count (--pattern 0,2,6 | --file FILE) --to N [--from A] [--workers N] [--json]',
+  async run(argv, io) {
+    const flags = parseFlags(argv, {
+      pattern: { type: 'string' }, file: { type: 'string' }, from: { type: 'string' }, to: { type: 'string' }, ...WORKERS_FLAG,
+    });
+    const pattern = tupleFromFlags(flags, 'pattern');
+    const to = parseInteger(requireFlag(flags, 'to'), '--to');
+    const from = typeof flags.from === 'string' ? parseInteger(flags.from, '--from') : 0n;
+    const block = await sievePrimeBlockParallel(from, to, { patterns: [pattern], workers: workersFlag(flags) });
+    const stats = block.patterns[0]!;
+    const result = { pattern: stats.pattern, from, to, count: BigInt(stats.count), first: stats.first, last: stats.last };
+    if (flags.json) io.out(toJson(result));
+    else {
+      io.out(`pattern {${stats.pattern.join(', ')}} in [${groupDigits(from)}, ${groupDigits(to)}]: ${groupDigits(stats.count)} occurrences\n`);
+      if (stats.first !== null) io.out(`first at n = ${groupDigits(stats.first)}, last at n = ${groupDigits(stats.last!)}\n`);
+      io.out('(n counted when n ≥ from and n + max H ≤ to)\n');
+    }
+    return 0;
+  },
+};
