@@ -1,7 +1,9 @@
+import { Transform } from 'class-transformer';
 import { IsEmail, IsNotEmpty, IsString, MaxLength } from 'class-validator';
 import type { SignInBody } from '@cribra/contracts';
 
 export class SignInDto implements SignInBody {
+  @Transform(({ value }) => (typeof value === 'string' ? value.trim() : value))
   @IsEmail({}, { message: 'email must be a valid e-mail address' })
   @MaxLength(320)
   email!: string;

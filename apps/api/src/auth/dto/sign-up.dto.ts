@@ -1,7 +1,9 @@
+import { Transform } from 'class-transformer';
 import { IsEmail, IsNotEmpty, IsOptional, IsString, MaxLength, MinLength } from 'class-validator';
 import { MIN_PASSWORD_LENGTH, type SignUpBody } from '@cribra/contracts';
 
 export class SignUpDto implements SignUpBody {
+  @Transform(({ value }) => (typeof value === 'string' ? value.trim() : value))
   @IsEmail({}, { message: 'email must be a valid e-mail address' })
   @MaxLength(320)
   email!: string;

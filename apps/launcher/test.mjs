@@ -1,0 +1,105 @@
+// `npm test`: the whole stack on a throwaway cluster (ports 4320–4323), every suite, one summary line.
+// `npm test -- --only=api,e2e` runs a subset (names: libs, web, api, e2e).
+import { randomBytes } from 'node:crypto';
+import { chmodSync, existsSync, mkdtempSync, rmSync } from 'node:fs';
+import { tmpdir } from 'node:os';
+import { join } from 'node:path';
+import { LaunchError, aptInstall, bold, ensureDependencies, step, warn } from './common.mjs';
+import { bringUp, build } from './stack.mjs';
+import { SUITES, runSuite } from './suites.mjs';
+
+const PORTS = { api: 4320, pg: 4321, smtp: 4322, mailWeb: 4323 };
+const CHROMIUM = '/usr/bin/chromium';
+
+function selectedSuites() {
+  const arg = process.argv.slice(2).find((a) => a.startsWith('--only='));
+  if (!arg) return SUITES;
+  const names = arg.slice('--only='.length).split(',').map((s) => s.trim()).filter(Boolean);
+  const unknown = names.filter((n) => !SUITES.some((s) => s.name === n));
+  if (unknown.length) throw new LaunchError(`Unknown suite(s) ${unknown.join(', ')}; choose from ${SUITES.map((s) => s.name).join(', ')}.`);
+  return SUITES.filter((s) => names.includes(s.name));
+}
+
+const t0 = Date.now();
+let tmp;
+let stack;
+let cleaning = false;
+
+async function cleanup() {
+  if (cleaning) return;
+  cleaning = true;
+  if (stack) await stack.stop();
+  if (tmp) rmSync(tmp, { recursive: true, force: true });
+}
+
+function summary(results) {
+  console.log('');
+  console.log(bold('Summary'));
+  for (const r of results) {
+    const time = r.seconds === undefined ? '' : ` (${r.seconds.toFixed(0)} s)`;
+    console.log(`  ${r.suite.padEnd(5)} ${r.passed} passed, ${r.failed} failed${r.skipped ? `, ${r.skipped} skipped` : ''}${time}`);
+    for (const n of r.notes) console.log(`        ${n}`);
+  }
+  const passed = results.reduce((a, r) => a + r.passed, 0);
+  const failed = results.reduce((a, r) => a + r.failed, 0);
+  console.log(`  total time ${((Date.now() - t0) / 1000).toFixed(0)} s`);
+  console.log(`${passed} passed, ${failed} failed`);
+  return failed;
+}
+
+async function main() {
+  const suites = selectedSuites();
+  const results = [];
+  process.on('SIGINT', () => cleanup().then(() => process.exit(130)));
+  process.on('SIGTERM', () => cleanup().then(() => process.exit(143)));
+
+  tmp = mkdtempSync(join(tmpdir(), 'cribra-test-'));
+  chmodSync(tmp, 0o755); // the postgres user must be able to enter it when we run as root
+  const baseEnv = { ...process.env, CRIBRA_ENV: 'test' };
+  let env = baseEnv;
+  try {
+    ensureDependencies();
+    const needStack = suites.some((s) => s.stack);
+    if (needStack) {
+      build();
+      stack = await bringUp({
+        ports: PORTS,
+        dataDir: join(tmp, 'postgres'),
+        sessionSecret: randomBytes(32).toString('hex'),
+        envName: 'test',
+        // Browser tests sign in many times within a minute; the rate limit itself is tested by Jest.
+        extraEnv: { SIGNIN_RATE_LIMIT: '100' },
+      });
+      env = { ...stack.env, BASE_URL: stack.env.PUBLIC_URL, CHROMIUM_PATH: CHROMIUM };
+    }
+  } catch (e) {
+    console.error(`\n✖ Setting up the test stack failed: ${e instanceof LaunchError ? e.message : (e.stack ?? e)}`);
+    await cleanup();
+    summary([{ suite: 'setup', passed: 0, failed: 1, skipped: 0, notes: ['no suite could run'] }]);
+    process.exit(1);
+  }
+
+  for (const suite of suites) {
+    if (suite.browser && !existsSync(CHROMIUM)) {
+      try {
+        aptInstall(['chromium'], `Chromium for the browser tests (${CHROMIUM})`);
+      } catch (e) {
+        warn(e.message);
+        results.push({ suite: suite.name, passed: 0, failed: 1, skipped: 0, notes: [`not run: ${CHROMIUM} is missing`] });
+        continue;
+      }
+    }
+    results.push(await runSuite(suite, { env, reportDir: tmp }));
+  }
+  step('Tearing down the test stack…');
+  await cleanup();
+  const failed = summary(results);
+  process.exit(failed ? 1 : 0);
+}
+
+main().catch(async (e) => {
+  console.error(e);
+  await cleanup();
+  console.log('0 passed, 1 failed');
+  process.exit(1);
+});
