@@ -16,6 +16,10 @@ export interface RunnerConfig {
   maintenanceSeconds: number;
   heartbeatMs: number;
   pollMs: number;
+  /** Levels up to this prime (≤ 23) are enumerated in one piece; deeper ones are streamed in chunks. */
+  levelOnePieceUpTo: number;
+  /** Base-cycle steps per level chunk job. */
+  levelStepsPerChunk: number;
   /** Test hook, honoured only with CRIBRA_ENV=test: pause inside each job after it started. */
   testPauseMs: number;
   env: string;
@@ -40,6 +44,8 @@ export function readRunnerConfig(env: NodeJS.ProcessEnv = process.env): RunnerCo
     maintenanceSeconds: positiveInt(env.CRIBRA_QUEUE_MAINTENANCE_SECONDS, 30, 'CRIBRA_QUEUE_MAINTENANCE_SECONDS'),
     heartbeatMs: positiveInt(env.CRIBRA_RUNNER_HEARTBEAT_MS, 5000, 'CRIBRA_RUNNER_HEARTBEAT_MS'),
     pollMs: positiveInt(env.CRIBRA_RUNNER_POLL_MS, 500, 'CRIBRA_RUNNER_POLL_MS'),
+    levelOnePieceUpTo: positiveInt(env.CRIBRA_LEVEL_ONE_PIECE_UP_TO, 23, 'CRIBRA_LEVEL_ONE_PIECE_UP_TO'),
+    levelStepsPerChunk: positiveInt(env.CRIBRA_LEVEL_STEPS_PER_CHUNK, 1e9, 'CRIBRA_LEVEL_STEPS_PER_CHUNK'),
     testPauseMs:
       cribraEnv === 'test' && env.CRIBRA_RUNNER_TEST_PAUSE_MS
         ? positiveInt(env.CRIBRA_RUNNER_TEST_PAUSE_MS, 0, 'CRIBRA_RUNNER_TEST_PAUSE_MS')

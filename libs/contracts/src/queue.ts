@@ -26,6 +26,8 @@ export interface LevelChunkJob {
   prime: number;
   index: number;
   chunks: number;
+  /** Level the target is streamed over; null: the level is enumerated in one piece. */
+  base: number | null;
 }
 export interface LedgerBlockJob {
   computationId: string | null;

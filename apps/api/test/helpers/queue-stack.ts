@@ -32,6 +32,7 @@ export class QueueStack {
   db!: DataSource;
   private readonly admin: PgClient;
   private readonly runners: ChildProcess[] = [];
+  private readonly byId = new Map<string, ChildProcess>();
   readonly logs = new Map<string, string>();
   private savedEnv: Record<string, string | undefined> = {};
 
@@ -69,6 +70,7 @@ export class QueueStack {
     child.stdout!.on('data', keep);
     child.stderr!.on('data', keep);
     this.runners.push(child);
+    this.byId.set(id, child);
     return child;
   }
 
@@ -77,6 +79,11 @@ export class QueueStack {
     const gone = new Promise<void>((resolve) => child.once('exit', () => resolve()));
     child.kill(signal);
     await gone;
+  }
+
+  /** Stops the runners started under these ids (clean stop, SIGTERM). */
+  async stopRunnersNamed(ids: string[]): Promise<void> {
+    await Promise.all(ids.map((id) => this.byId.get(id)).filter((c): c is ChildProcess => !!c).map((c) => this.stopRunner(c)));
   }
 
   async stop(): Promise<void> {

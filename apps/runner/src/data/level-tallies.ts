@@ -14,19 +14,36 @@ import {
   wheelLevelStats,
   type GapHistogram,
   type PatternTally as EnginePatternTally,
-  type WheelChunkSpec,
   type WheelChunkTally,
 } from '@cribra/engine';
 import type { GapCount, PatternTally } from '@cribra/contracts';
 
-/** Levels up to 23# are enumerated in one piece; deeper ones are streamed in chunks over 23#. */
+/** Levels up to 23# are enumerated in one piece by default; deeper ones are streamed in chunks. */
 export const IN_ONE_PIECE_UP_TO = MAX_MEMORY_LEVEL;
 /** Consecutive-pattern lengths stored for levels enumerated in one piece. */
 export const SMALL_LEVEL_PATTERN_LENGTHS = [2, 3] as const;
 /** Streamed levels store pairs of consecutive gaps. */
 export const STREAMED_PATTERN_LENGTH = 2;
-/** Base-cycle steps per chunk job (a few seconds of one core). */
+/** Base-cycle steps per chunk job by default (a few seconds of one core). */
 export const STEPS_PER_CHUNK = 1e9;
+
+/** How a level is split: in one piece (base null) or streamed over `base` in `chunks` chunks. */
+export interface LevelPlan {
+  base: number | null;
+  chunks: number;
+}
+
+/**
+ * Plans a level. `onePieceUpTo` (≤ 23) and `stepsPerChunk` only change how the work is cut, never
+ * the result (chunks partition the period; see the engine's planWheelChunks).
+ */
+export function planLevel(prime: number, onePieceUpTo = IN_ONE_PIECE_UP_TO, stepsPerChunk = STEPS_PER_CHUNK): LevelPlan {
+  if (prime <= Math.min(onePieceUpTo, IN_ONE_PIECE_UP_TO) || prime < 5) return { base: null, chunks: 1 };
+  const base = Math.min(previousPrime(prime), onePieceUpTo, IN_ONE_PIECE_UP_TO);
+  const copies = chunkCopies(base, prime);
+  const steps = copies * Number(primorialTotient(base));
+  return { base, chunks: Math.max(1, Math.min(copies, Math.ceil(steps / stepsPerChunk))) };
+}
 
 /** A level chunk as stored in level_chunks.summary (JSON). */
 export type ChunkSummaryJson =
@@ -45,25 +62,6 @@ export type ChunkSummaryJson =
       histogramLength: number;
       patternsLength: number;
     };
-
-/** Base level a deep level is streamed over. */
-export function streamBase(prime: number): number {
-  return Math.min(previousPrime(prime), IN_ONE_PIECE_UP_TO);
-}
-
-/** Number of chunk jobs for a level. */
-export function levelChunkCount(prime: number): number {
-  if (prime <= IN_ONE_PIECE_UP_TO) return 1;
-  const base = streamBase(prime);
-  const copies = chunkCopies(base, prime);
-  const steps = copies * Number(primorialTotient(base));
-  return Math.max(1, Math.min(copies, Math.ceil(steps / STEPS_PER_CHUNK)));
-}
-
-/** The chunk specs of a deep level (deterministic: every runner derives the same list). */
-export function levelChunkSpecs(prime: number, chunks: number): WheelChunkSpec[] {
-  return planWheelChunks(streamBase(prime), prime, chunks, STREAMED_PATTERN_LENGTH);
-}
 
 const sparse = (a: Float64Array): Array<[number, number]> => {
   const out: Array<[number, number]> = [];
@@ -85,9 +83,9 @@ function tallyList(length: number, t: EnginePatternTally): PatternTally {
   return { length, entries: [...t].map(([key, count]) => ({ pattern: key.split(',').map(Number), count: count.toString() })) };
 }
 
-/** Computes chunk `index` of `chunks` for level `prime` with the engine. */
-export function computeLevelChunk(prime: number, index: number, chunks: number): ChunkSummaryJson {
-  if (prime <= IN_ONE_PIECE_UP_TO) {
+/** Computes chunk `index` of a level planned as `plan` with the engine. */
+export function computeLevelChunk(prime: number, index: number, plan: LevelPlan): ChunkSummaryJson {
+  if (plan.base === null) {
     const s = wheelLevelStats(prime, [...SMALL_LEVEL_PATTERN_LENGTHS]);
     return {
       kind: 'stats',
@@ -97,8 +95,8 @@ export function computeLevelChunk(prime: number, index: number, chunks: number):
       patternTallies: SMALL_LEVEL_PATTERN_LENGTHS.map((L) => tallyList(L, s.patterns.get(L)!)),
     };
   }
-  const spec = levelChunkSpecs(prime, chunks)[index];
-  if (!spec) throw new Error(`level ${prime} has no chunk ${index} of ${chunks}`);
+  const spec = planWheelChunks(plan.base, prime, plan.chunks, STREAMED_PATTERN_LENGTH)[index];
+  if (!spec) throw new Error(`level ${prime} has no chunk ${index} of ${plan.chunks}`);
   const t = runWheelChunk(spec, wheelGaps(spec.base));
   return {
     kind: 'tally',

@@ -5,14 +5,14 @@ import { sendCombine } from './combine.job';
 
 /** Computes one chunk of a wheel level; stored once (primary key), then counted by recount. */
 export const levelChunk: JobHandler<LevelChunkJob> = async (ctx, job) => {
-  const { computationId, prime, index, chunks } = job.data;
+  const { computationId, prime, index, chunks, base } = job.data;
   const { db, cfg } = ctx;
   const state = await db.query(`SELECT status FROM computations WHERE id = $1`, [computationId]);
   if (!state.rowCount || state.rows[0].status === 'succeeded' || state.rows[0].status === 'failed') return;
   const exists = await db.query(`SELECT 1 FROM level_chunks WHERE computation_id = $1 AND chunk_index = $2`, [computationId, index]);
   if (!exists.rowCount) {
     const t0 = Date.now();
-    const summary = computeLevelChunk(prime, index, chunks);
+    const summary = computeLevelChunk(prime, index, { base: base ?? null, chunks });
     await db.query(
       `INSERT INTO level_chunks (computation_id, chunk_index, summary, runner_id) VALUES ($1, $2, $3, $4)
        ON CONFLICT (computation_id, chunk_index) DO NOTHING`,

@@ -1,5 +1,5 @@
 import { QUEUES, type LedgerBlockJob, type LevelChunkJob, type PlanJob } from '@cribra/contracts';
-import { levelChunkCount } from '../data/level-tallies';
+import { planLevel as planLevelChunks } from '../data/level-tallies';
 import type { JobContext, JobHandler } from '../job-context';
 import { jobOptions } from '../queue/job-options';
 import { finishLedgerIfComplete, sendCombine } from './combine.job';
@@ -28,7 +28,7 @@ async function sendAll(ctx: JobContext, name: string, datas: object[]): Promise<
 }
 
 async function planLevel(ctx: JobContext, id: string, prime: number): Promise<void> {
-  const chunks = levelChunkCount(prime);
+  const { base, chunks } = planLevelChunks(prime, ctx.cfg.levelOnePieceUpTo, ctx.cfg.levelStepsPerChunk);
   await ctx.db.query(
     `UPDATE computations SET chunks_total = $2, status = 'running', started_at = coalesce(started_at, now()) WHERE id = $1`,
     [id, chunks],
@@ -37,7 +37,7 @@ async function planLevel(ctx: JobContext, id: string, prime: number): Promise<vo
   const { rows } = await ctx.db.query(`SELECT chunk_index FROM level_chunks WHERE computation_id = $1`, [id]);
   const done = new Set(rows.map((r: { chunk_index: number }) => r.chunk_index));
   const jobs: LevelChunkJob[] = [];
-  for (let index = 0; index < chunks; index++) if (!done.has(index)) jobs.push({ computationId: id, prime, index, chunks });
+  for (let index = 0; index < chunks; index++) if (!done.has(index)) jobs.push({ computationId: id, prime, index, chunks, base });
   if (jobs.length) await sendAll(ctx, QUEUES.levelChunk, jobs);
   else await sendCombine(ctx, id);
   ctx.log(`level ${prime}#: ${chunks} chunk(s) planned`);

@@ -1,0 +1,138 @@
+import { primeBlockToJson, sievePrimeBlock, wheelLevelStats } from '@cribra/engine';
+import { LEDGER_CONSTELLATIONS, type ComputationView, type LedgerRangeView, type RunView, type WheelLevelView } from '@cribra/contracts';
+import { addCell, createNotebook, person, type Person } from './helpers/notebooks';
+import { QueueStack, waitFor } from './helpers/queue-stack';
+
+/**
+ * The queue under stress: a runner killed mid-job, and chunked computations shared by two runners
+ * that must equal the single-process result.
+ */
+describe('queue and runners', () => {
+  const stack = new QueueStack();
+  let owner: Person;
+
+  beforeAll(async () => {
+    await stack.start();
+    owner = await person(stack.app, 'qowner');
+  }, 60_000);
+  afterAll(async () => {
+    await stack.stop();
+  });
+
+  const sql = <T = Record<string, unknown>>(text: string, params: unknown[] = []): Promise<T[]> => stack.db.query(text, params);
+
+  it('finishes a run on another runner after its runner is killed (SIGKILL), counted once', async () => {
+    const nb = await createNotebook(owner);
+    const cell = await addCell(owner, nb.id, 'primorial(17)');
+    // Runner A pauses 6 s inside every job, so it surely dies mid-job.
+    const a = stack.startRunner('kill-a', { CRIBRA_RUNNER_TEST_PAUSE_MS: '6000' });
+    const queued = (await owner.client.call('post', `/api/cells/${cell.id}/runs`)).body as RunView;
+    await waitFor('runner A to take the run', async () => {
+      const [r] = await sql<{ status: string; runner_id: string }>(`SELECT status, runner_id FROM runs WHERE id = $1`, [queued.id]);
+      return r.status === 'running' && r.runner_id === 'kill-a' ? true : undefined;
+    });
+    await stack.stopRunner(a, 'SIGKILL');
+    stack.startRunner('kill-b');
+
+    const run = await waitFor(
+      'the run to finish on runner B',
+      async () => {
+        const r = (await owner.client.call('get', `/api/runs/${queued.id}`)).body as RunView;
+        return r.status === 'succeeded' || r.status === 'failed' ? r : undefined;
+      },
+      45_000,
+    );
+    expect(run).toMatchObject({ status: 'succeeded', runnerId: 'kill-b', attempts: 2 });
+    expect(run.outputs).toEqual([expect.objectContaining({ kind: 'value', text: '510510' })]); // 17# = 510510 (OEIS A002110)
+    // Counted once: one run row for the cell, one completed job, A never finished anything.
+    expect(await sql(`SELECT count(*)::int AS n FROM runs WHERE cell_id = $1`, [cell.id])).toEqual([{ n: 1 }]);
+    const [{ job_id: jobId }] = await sql<{ job_id: string }>(`SELECT job_id FROM runs WHERE id = $1`, [queued.id]);
+    const jobs = await sql<{ state: string; retry_count: number }>(
+      `SELECT state, retry_count FROM pgboss.job WHERE id = $1 UNION ALL SELECT state, retry_count FROM pgboss.archive WHERE id = $1`,
+      [jobId],
+    );
+    expect(jobs).toEqual([{ state: 'completed', retry_count: 1 }]);
+    const runners = await sql<{ id: string; jobs_done: number; stopped_at: Date | null }>(
+      `SELECT id, jobs_done, stopped_at FROM runners WHERE id IN ('kill-a', 'kill-b') ORDER BY id`,
+    );
+    expect(runners.map((r) => [r.id, r.jobs_done])).toEqual([
+      ['kill-a', 0],
+      ['kill-b', 1],
+    ]);
+    expect(runners[0].stopped_at).toBeNull(); // died without a clean stop
+  }, 60_000);
+
+  it('computes a ledger range in blocks shared by two runners, equal to one single-process sieve', async () => {
+    stack.startRunner('share-c');
+    await waitFor('both runners', async () => {
+      const rows = await sql(`SELECT id FROM runners WHERE id IN ('kill-b', 'share-c') AND stopped_at IS NULL`);
+      return rows.length === 2 ? true : undefined;
+    });
+    const to = 60_000_000;
+    const requested = await owner.client.call('post', '/api/ledger/computations', { from: '0', to: String(to) });
+    expect(requested.status).toBe(202);
+    expect(requested.body).toMatchObject({ kind: 'ledger', chunksTotal: 6 });
+    const done = await waitFor(
+      'the ledger computation',
+      async () => {
+        const c = (await owner.client.call('get', `/api/computations/${requested.body.id}`)).body as ComputationView;
+        return c.status === 'succeeded' || c.status === 'failed' ? c : undefined;
+      },
+      90_000,
+      300,
+    );
+    expect(done).toMatchObject({ status: 'succeeded', chunksDone: 6 });
+    const by = await sql<{ computed_by: string }>(`SELECT DISTINCT computed_by FROM ledger_blocks ORDER BY 1`);
+    expect(by.map((r) => r.computed_by)).toEqual(['kill-b', 'share-c']);
+
+    const range = (await owner.client.call('get', `/api/ledger/range?from=0&to=${to}`)).body as LedgerRangeView;
+    const single = primeBlockToJson(sievePrimeBlock(0, to - 1, { gaps: true, patterns: Object.values(LEDGER_CONSTELLATIONS).map((p) => [...p]) }));
+    expect(range.complete).toBe(true);
+    expect(range.primeCount).toBe(String(single.primeCount));
+    expect(range.gapHistogram).toEqual(
+      Object.entries(single.gaps!.histogram)
+        .map(([gap, count]) => ({ gap: Number(gap), count: String(count) }))
+        .sort((x, y) => x.gap - y.gap),
+    );
+    const counts = Object.fromEntries(Object.keys(LEDGER_CONSTELLATIONS).map((name, i) => [name, String(single.patterns[i].count)]));
+    expect(range.constellations).toEqual(counts);
+    const records = single.gaps!.records;
+    expect(range.largestGap).toEqual({ gap: records[records.length - 1].gap, start: records[records.length - 1].after });
+
+    // π(10^7) = 664579 (OEIS A006880) and 58980 twin prime pairs below 10^7 (OEIS A007508); values from memory.
+    const block0 = (await owner.client.call('get', '/api/ledger/blocks/0')).body;
+    expect(block0).toMatchObject({ index: 0, start: '0', end: '10000000', primeCount: '664579' });
+    expect(block0.constellations.twin).toBe('58980');
+  }, 120_000);
+
+  it('streams a wheel level in chunks on two runners, equal to the one-piece enumeration', async () => {
+    // Only how the work is cut changes: 17# streamed over 13# in chunks of at most 20 000 steps.
+    const knobs = { CRIBRA_LEVEL_ONE_PIECE_UP_TO: '13', CRIBRA_LEVEL_STEPS_PER_CHUNK: '20000' };
+    stack.startRunner('level-d', knobs);
+    stack.startRunner('level-e', knobs);
+    // Leave the level jobs to the two runners with the knobs.
+    await stack.stopRunnersNamed(['kill-b', 'share-c']);
+    const requested = await owner.client.call('post', '/api/levels/17/computations');
+    expect(requested.status).toBe(202);
+    const level = await waitFor(
+      'level 17 to be stored',
+      async () => {
+        const l = await owner.client.call('get', '/api/levels/17');
+        return l.status === 200 && l.body.status === 'stored' ? (l.body as WheelLevelView) : undefined;
+      },
+      60_000,
+      300,
+    );
+    expect(level.chunksTotal).toBeGreaterThan(1);
+    const chunkRunners = stack.logs.get('level-d')!.includes('chunk') && stack.logs.get('level-e')!.includes('chunk');
+    expect(chunkRunners).toBe(true);
+    const single = wheelLevelStats(17, [2]);
+    expect(level).toMatchObject({ prime: 17, modulus: '510510', phi: '92160', largestGap: single.maxGap });
+    expect(level.histogram).toEqual([...single.histogram].map(([gap, count]) => ({ gap, count: count.toString() })));
+    expect(level.patternTallies).toEqual([
+      { length: 2, entries: [...single.patterns.get(2)!].map(([k, count]) => ({ pattern: k.split(',').map(Number), count: count.toString() })) },
+    ]);
+    // Jacobsthal function of 17#: the largest gap of level 17 is 26 (OEIS A048670; value from memory).
+    expect(level.largestGap).toBe(26);
+  }, 90_000);
+});
