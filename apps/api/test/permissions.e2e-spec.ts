@@ -2,6 +2,8 @@
 // action without a probe here fails) × owner, editor, reviewer, viewer, outsider, admin, through
 // HTTP. Then every content-changing action on a locked notebook. docs/permissions.md shows the table.
 import type { INestApplication } from '@nestjs/common';
+import { readFileSync } from 'node:fs';
+import { join } from 'node:path';
 import request, { Response } from 'supertest';
 import { CSRF_HEADER, type MemberRole } from '@cribra/contracts';
 import { ADMIN_EXCLUDED, CHANGES_CONTENT, MATRIX, NotebookPolicyService, type NotebookAction } from '../src/members/notebook-policy.service';
@@ -186,6 +188,22 @@ const ACTIONS = Object.keys(MATRIX) as NotebookAction[];
 describe('the policy table', () => {
   it('has a probe for every action', () => {
     expect(Object.keys(PROBES).sort()).toEqual([...ACTIONS].sort());
+  });
+
+  it('is the table docs/permissions.md shows', () => {
+    const doc = readFileSync(join(__dirname, '../../../docs/permissions.md'), 'utf8');
+    const block = doc.slice(doc.indexOf('<!-- permission-matrix:start -->'), doc.indexOf('<!-- permission-matrix:end -->'));
+    const rows = block.split('\n').filter((l) => l.startsWith('| `'));
+    const shown = rows.map((l) => {
+      const cells = l.split('|').map((c) => c.trim());
+      return { action: cells[1].replace(/`/g, ''), marks: cells.slice(3, 9), locked: cells[9] };
+    });
+    expect(shown.map((r) => r.action)).toEqual(ACTIONS);
+    for (const r of shown) {
+      const action = r.action as NotebookAction;
+      expect([action, r.marks]).toEqual([action, WHO.map((who) => (allowed(action, who) ? '✓' : '—'))]);
+      expect([action, r.locked.includes('409')]).toEqual([action, CHANGES_CONTENT.has(action)]);
+    }
   });
 
   it('decides every cell as the table says (pure decision)', () => {
