@@ -36,12 +36,35 @@ export interface CoreResult {
   gaps: CoreGapResult | null;
 }
 
+// CLASS_STEP[8·r + c]: the least t ≥ 0 with r + t ≡ RESIDUES[c] (mod 30).
+const CLASS_STEP: Int32Array = (() => {
+  const t = new Int32Array(240);
+  for (let r = 0; r < 30; r++) for (let c = 0; c < 8; c++) t[8 * r + c] = (((RESIDUES[c]! - r) % 30) + 30) % 30;
+  return t;
+})();
+// For p ≡ s (mod 30): PRODUCT_RESIDUE[8·s + c] = s·RESIDUES[c] mod 30, PRODUCT_MASK the byte mask clearing it.
+const PRODUCT_RESIDUE = new Int32Array(240);
+const PRODUCT_MASK = new Uint8Array(240);
+for (let s = 0; s < 30; s++) {
+  for (let c = 0; c < 8; c++) {
+    const r = (s * RESIDUES[c]!) % 30;
+    PRODUCT_RESIDUE[8 * s + c] = r;
+    PRODUCT_MASK[8 * s + c] = RESIDUE_BIT[r]! >= 0 ? ~(1 << RESIDUE_BIT[r]!) & 0xff : 0xff;
+  }
+}
+
 // Offset (from the segment base) of the integer of bit `pos` of a 32-bit word at word index 0.
 const WORD_BIT_VALUE: Int32Array = (() => {
   const t = new Int32Array(32);
   for (let pos = 0; pos < 32; pos++) t[pos] = 30 * (pos >> 3) + RESIDUES[pos & 7]!;
   return t;
 })();
+
+// Work arrays reused across calls (a sieve call runs to completion before the next one starts).
+let scratchNext = new Int32Array(0);
+let scratchMasks = new Uint8Array(0);
+let scratchBuf = new Uint8Array(0);
+let scratchU32 = new Uint32Array(0);
 
 /**
  * Segmented sieve of Eratosthenes on the mod-30 wheel over [a, b] (safe integers, 0 ≤ a ≤ b,
@@ -111,9 +134,13 @@ export function sieveCore(
   const extra = patterns.length > 0 ? (maxByteOffset + 11) & ~3 : 0;
   const base0 = a - (a % 30);
   const totalBytes = Math.floor((b - base0) / 30) + 1;
-  const buffer = new ArrayBuffer(SEGMENT_BYTES + extra + 8);
-  const buf = new Uint8Array(buffer);
-  const u32 = new Uint32Array(buffer);
+  if (scratchBuf.length < SEGMENT_BYTES + extra + 8) {
+    const buffer = new ArrayBuffer(SEGMENT_BYTES + extra + 8);
+    scratchBuf = new Uint8Array(buffer);
+    scratchU32 = new Uint32Array(buffer);
+  }
+  const buf = scratchBuf;
+  const u32 = scratchU32;
   const pattern = presievePattern(SEGMENT_BYTES + extra + 8);
 
   // Sieving primes from 23 up: next byte of each of the 8 residue-class progressions, and its mask.
@@ -122,8 +149,12 @@ export function sieveCore(
   let lastSieving = firstSieving;
   while (lastSieving < sieving.length && sieving[lastSieving]! * sieving[lastSieving]! <= b) lastSieving++;
   const nSieving = lastSieving - firstSieving;
-  const next = new Int32Array(8 * nSieving);
-  const masks = new Uint8Array(8 * nSieving);
+  if (scratchNext.length < 8 * nSieving) {
+    scratchNext = new Int32Array(8 * nSieving);
+    scratchMasks = new Uint8Array(8 * nSieving);
+  }
+  const next = scratchNext;
+  const masks = scratchMasks;
   let active = 0;
   let small = 0;
 
@@ -143,23 +174,7 @@ export function sieveCore(
     }
 
     // Activate the primes whose square falls before the end of this segment.
-    const end = base + 30 * L;
-    while (active < nSieving) {
-      const p = sieving[firstSieving + active]!;
-      if (p * p >= end) break;
-      const start = Math.max(p * p, base);
-      const rem = start % p;
-      const m0 = (start - rem) / p + (rem === 0 ? 0 : 1);
-      const o = active << 3;
-      for (let c = 0; c < 8; c++) {
-        const r = RESIDUES[c]!;
-        const m = m0 + ((((r - (m0 % 30)) % 30) + 30) % 30);
-        const n = p * m;
-        next[o + c] = (n - base - (n % 30)) / 30;
-        masks[o + c] = ~(1 << RESIDUES.indexOf(n % 30)) & 0xff;
-      }
-      active++;
-    }
+    active = activate(sieving, firstSieving, nSieving, active, base, base + 30 * L, next, masks);
     // Primes with many hits per segment are crossed off one L1-sized piece at a time.
     while (small < active && sieving[firstSieving + small]! < SMALL_PRIME_BOUND) small++;
     for (let piece = L1_BYTES; piece < len; piece += L1_BYTES) crossRange(buf, next, masks, sieving, firstSieving, 0, small, piece, 0);
@@ -275,6 +290,50 @@ function crossRange(
     next[o] = j0 - shift; next[o + 1] = j1 - shift; next[o + 2] = j2 - shift; next[o + 3] = j3 - shift;
     next[o + 4] = j4 - shift; next[o + 5] = j5 - shift; next[o + 6] = j6 - shift; next[o + 7] = j7 - shift;
   }
+}
+
+/**
+ * Starts the progressions of the sieving primes from index `active` on whose square lies below
+ * `end`: for each residue class c, the byte (relative to `base`) of the least multiple p·m ≥
+ * max(p², base) with m ≡ RESIDUES[c] (mod 30). Returns the new number of active primes.
+ */
+function activate(
+  sieving: Uint32Array,
+  first: number,
+  count: number,
+  active: number,
+  base: number,
+  end: number,
+  next: Int32Array,
+  masks: Uint8Array,
+): number {
+  while (active < count) {
+    const p = sieving[first + active]!;
+    if (p * p >= end) break;
+    const start = p * p > base ? p * p : base;
+    // m0 = ⌈start / p⌉ without a floating-point remainder (the quotient is corrected to be exact).
+    let q = Math.floor(start / p);
+    let rem = start - q * p;
+    if (rem < 0) {
+      q--;
+      rem += p;
+    } else if (rem >= p) {
+      q++;
+      rem -= p;
+    }
+    const m0 = rem === 0 ? q : q + 1;
+    const d = (m0 - 30 * Math.floor(m0 / 30)) << 3;
+    const pr = (p % 30) << 3;
+    const o = active << 3;
+    const rel = p * m0 - base; // small: the multiples are near base
+    for (let c = 0; c < 8; c++) {
+      const n = rel + p * CLASS_STEP[d + c]!;
+      next[o + c] = (n - PRODUCT_RESIDUE[pr + c]!) / 30; // base ≡ 0 (mod 30)
+      masks[o + c] = PRODUCT_MASK[pr + c]!;
+    }
+    active++;
+  }
+  return active;
 }
 
 /** Crosses off the look-ahead bytes [len, L) (they are sieved again as part of the next segment). */

@@ -1,0 +1,27 @@
+import { describe, expect, it } from 'vitest';
+import { EngineError } from '../errors';
+import { primeBlockToJson, sievePrimeBlock } from '../sieve';
+import { sievePrimeBlockParallel } from './sieve-parallel';
+
+describe('parallel sieve over worker threads', () => {
+  it('equals the one-pass block (π, gaps, patterns) on 2 workers', async () => {
+    const options = { gaps: true, patterns: [[0, 2], [0, 2, 6, 8], [0, 4, 6, 10, 12, 16]] };
+    const progress: number[] = [];
+    const parallel = await sievePrimeBlockParallel(1_000_000, 61_000_000, {
+      ...options,
+      workers: 2,
+      blocks: 7,
+      onProgress: (done) => progress.push(done),
+    });
+    expect(primeBlockToJson(parallel)).toEqual(primeBlockToJson(sievePrimeBlock(1_000_000, 61_000_000, options)));
+    expect(progress).toEqual([1, 2, 3, 4, 5, 6, 7]);
+  });
+  it('counts π(10^8) = 5761455 (OEIS A006880) with the default split', async () => {
+    expect((await sievePrimeBlockParallel(0, '1e8', { workers: 2 })).primeCount).toBe(5761455);
+  });
+  it('rejects bad input before starting workers', async () => {
+    await expect(sievePrimeBlockParallel(0, 100, { patterns: [[0, 2, 4]] })).rejects.toThrow(EngineError);
+    await expect(sievePrimeBlockParallel(0, 100, { workers: 0 })).rejects.toThrow(/worker count 0/);
+    await expect(sievePrimeBlockParallel(5, 1)).rejects.toThrow(/empty range/);
+  });
+});
