@@ -1,0 +1,95 @@
+import type { ComputationView, LedgerRangeView, WheelLevelSummary, WheelLevelView } from '@cribra/contracts';
+import { NO_SUCH_ID, person, type Person } from './helpers/notebooks';
+import { QueueStack, waitFor } from './helpers/queue-stack';
+import { Client } from './helpers/test-app';
+
+/** Stored wheel levels, the prime ledger and their computations, with one runner. */
+describe('levels, ledger and computations', () => {
+  const stack = new QueueStack();
+  let me: Person;
+
+  beforeAll(async () => {
+    await stack.start();
+    stack.startRunner('levels-a');
+    me = await person(stack.app, 'levels');
+  }, 60_000);
+  afterAll(async () => {
+    await stack.stop();
+  });
+
+  const finished = (id: string) =>
+    waitFor(
+      `computation ${id}`,
+      async () => {
+        const c = (await me.client.call('get', `/api/computations/${id}`)).body as ComputationView;
+        return c.status === 'succeeded' || c.status === 'failed' ? c : undefined;
+      },
+      40_000,
+      200,
+    );
+
+  it('computes and stores wheel levels on request, once', async () => {
+    const first = await me.client.call('post', '/api/levels/11/computations');
+    expect(first.status).toBe(202);
+    expect(first.body).toMatchObject({ kind: 'level', params: { prime: 11 }, requestedBy: { id: me.id } });
+    const again = await me.client.call('post', '/api/levels/11/computations');
+    expect(again.body.id).toBe(first.body.id); // already queued or stored: the same computation
+    expect(await finished(first.body.id)).toMatchObject({ status: 'succeeded', chunksTotal: 1, chunksDone: 1 });
+    const level = (await me.client.call('get', '/api/levels/11')).body as WheelLevelView;
+    // 11# = 2310 (OEIS A002110), φ(11#) = 480 (OEIS A005867); largest gap 14 (OEIS A048670, from memory).
+    expect(level).toMatchObject({ prime: 11, modulus: '2310', phi: '480', largestGap: 14, status: 'stored', computedBy: 'levels-a' });
+    expect(level.digest).toMatch(/^[0-9a-f]{64}$/);
+    const total = level.histogram.reduce((s, h) => s + BigInt(h.count), 0n);
+    expect(total).toBe(480n); // one gap per member over a period
+    expect(level.patternTallies.map((t) => t.length)).toEqual([2, 3]);
+    for (const t of level.patternTallies) expect(t.entries.reduce((s, e) => s + BigInt(e.count), 0n)).toBe(480n);
+    const list = (await me.client.call('get', '/api/levels')).body as WheelLevelSummary[];
+    expect(list.map((l) => l.prime)).toContain(11);
+    expect((await me.client.call('post', '/api/levels/11/computations')).body.id).toBe(first.body.id);
+  });
+
+  it('refuses levels that are not primes or too deep (400) and unknown ones (404)', async () => {
+    const bad = await me.client.call('post', '/api/levels/12/computations');
+    expect(bad.status).toBe(400);
+    expect(bad.body.details).toEqual([{ field: 'prime', messages: [expect.stringContaining('not a prime')] }]);
+    expect((await me.client.call('post', '/api/levels/43/computations')).status).toBe(400);
+    expect((await me.client.call('post', '/api/levels/seven/computations')).status).toBe(400);
+    expect((await me.client.call('get', '/api/levels/13')).status).toBe(404);
+    expect((await me.client.call('get', `/api/computations/${NO_SUCH_ID}`)).status).toBe(404);
+    expect((await new Client(stack.app).call('get', '/api/levels')).status).toBe(401);
+  });
+
+  it('stores ledger blocks, lists and reads them, and combines a range', async () => {
+    const req = await me.client.call('post', '/api/ledger/computations', { from: '0', to: '15000000' });
+    expect(req.status).toBe(202);
+    expect(req.body.chunksTotal).toBe(2);
+    expect(await finished(req.body.id)).toMatchObject({ status: 'succeeded', chunksDone: 2 });
+    const list = await me.client.call('get', '/api/ledger/blocks?from=0&to=20000000');
+    expect(list.body).toMatchObject({ total: 2, page: 1 });
+    expect(list.body.items.map((b: { index: number }) => b.index)).toEqual([0, 1]);
+    const block = (await me.client.call('get', '/api/ledger/blocks/1')).body;
+    expect(block).toMatchObject({ index: 1, start: '10000000', end: '20000000', computedBy: 'levels-a' });
+    expect(block.gapHistogram.length).toBeGreaterThan(10);
+    // π(2·10^7) = 1270607 (OEIS A006880 neighbourhood; value from memory).
+    const range = (await me.client.call('get', '/api/ledger/range?from=0&to=20000000')).body as LedgerRangeView;
+    expect(range).toMatchObject({ complete: true, missingBlocks: [], primeCount: '1270607' });
+    const partial = (await me.client.call('get', '/api/ledger/range?from=0&to=30000000')).body as LedgerRangeView;
+    expect(partial).toMatchObject({ complete: false, missingBlocks: [2], primeCount: null });
+    // A request for stored blocks only is finished at once.
+    const again = await me.client.call('post', '/api/ledger/computations', { from: '5', to: '19999999' });
+    expect(again.body).toMatchObject({ status: 'succeeded', chunksTotal: 2, chunksDone: 2 });
+    const kinds = (await me.client.call('get', '/api/computations?kind=ledger')).body as ComputationView[];
+    expect(kinds.every((c) => c.kind === 'ledger')).toBe(true);
+  });
+
+  it('refuses bad ledger ranges (400) and unknown blocks (404)', async () => {
+    const reversed = await me.client.call('post', '/api/ledger/computations', { from: '100', to: '10' });
+    expect(reversed.status).toBe(400);
+    expect(reversed.body.details).toEqual([{ field: 'to', messages: ['to must be greater than from'] }]);
+    expect((await me.client.call('post', '/api/ledger/computations', { from: '0', to: '100000000001' })).status).toBe(400);
+    expect((await me.client.call('post', '/api/ledger/computations', { from: '-1', to: '10' })).status).toBe(400);
+    expect((await me.client.call('get', '/api/ledger/range?from=abc&to=10')).status).toBe(400);
+    expect((await me.client.call('get', '/api/ledger/blocks/999')).status).toBe(404);
+    expect((await me.client.call('get', '/api/computations?kind=other')).status).toBe(400);
+  });
+});
