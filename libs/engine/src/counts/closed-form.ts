@@ -1,5 +1,6 @@
 import { inputError, limitError } from '../errors';
 import { primesUpTo } from '../primes/small-primes';
+import { wheelGaps } from '../wheel/level-gaps';
 import { checkLevel, nextPrime, previousPrime, productTree } from '../wheel/primorial';
 
 /** One term c·∏_{from ≤ q ≤ p} (q − shift) of a closed form. */
@@ -176,8 +177,8 @@ export function evaluateClosedForm(form: ClosedForm, p: number): bigint {
 /**
  * Exact number of occurrences of the consecutive gap pattern in one period [1, p#] of level p
  * (occurrence at member x: x, x + g_1, … are consecutive members). Uses the closed form when
- * p ≥ validFrom, otherwise the inclusion–exclusion restricted to the primes ≤ p (p ≥ 3); level 2
- * (one member, gap 2) directly.
+ * p ≥ validFrom, otherwise the inclusion–exclusion restricted to the primes ≤ p (p ≥ 3; for spans
+ * above 60 at levels ≤ 13, whose pruning is weak, a walk of the tiny cycle); level 2 directly.
  * @throws EngineError as {@link patternClosedForm} and for a level that is not a prime ≤ 10^6.
  */
 export function patternCount(gaps: readonly number[], p: number): bigint {
@@ -186,6 +187,8 @@ export function patternCount(gaps: readonly number[], p: number): bigint {
   if (p === 2) return gaps.every((g) => g === 2) ? 1n : 0n;
   const form = patternClosedForm(gaps);
   if (p >= form.validFrom) return evaluateClosedForm(form, p);
+  const D = gaps.reduce((a, b) => a + b, 0);
+  if (p <= 13 && D > 60) return cyclicCount(gaps, p); // weak pruning at tiny levels: walk the cycle
   const sums = signedSums(gaps, p);
   let total = 0n;
   for (const v of sums.values()) total += v;
@@ -195,4 +198,16 @@ export function patternCount(gaps: readonly number[], p: number): bigint {
 /** Exact number of gaps equal to g in one period of level p (see {@link patternCount}). */
 export function gapCount(g: number, p: number): bigint {
   return patternCount([g], p);
+}
+
+/** Occurrences in one period of a small level (≤ 13#, at most 5760 gaps) by walking its cycle. */
+function cyclicCount(gaps: readonly number[], p: number): bigint {
+  const cycle = wheelGaps(p);
+  const n = cycle.length;
+  let count = 0;
+  outer: for (let i = 0; i < n; i++) {
+    for (let k = 0; k < gaps.length; k++) if (cycle[(i + k) % n] !== gaps[k]) continue outer;
+    count++;
+  }
+  return BigInt(count);
 }

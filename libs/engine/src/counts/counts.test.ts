@@ -11,7 +11,11 @@ import {
 } from './index';
 
 const LEVELS = [3, 5, 7, 11, 13, 17, 19, 23];
-const hist = (p: number) => cycleHistogramAndPairSums(wheelGaps(p)).histogram;
+const histCache = new Map<number, ReturnType<typeof cycleHistogramAndPairSums>['histogram']>();
+const hist = (p: number) => {
+  if (!histCache.has(p)) histCache.set(p, cycleHistogramAndPairSums(wheelGaps(p)).histogram);
+  return histCache.get(p)!;
+};
 
 describe('occurrences of an admissible tuple in one period', () => {
   it('∏(q − ν_q(H)) agrees with counting members x with x + H all members (brute force to 13#)', () => {
@@ -83,9 +87,12 @@ describe('closed forms of consecutive gap counts', () => {
     );
   });
   it('long patterns at small levels (below the closed form range) by the restricted inclusion–exclusion', () => {
-    for (const gs of [[6, 4, 2, 4, 2, 4, 6, 2], [10, 2, 4, 2, 4, 6, 2, 6], [2, 10, 2]]) {
-      for (const p of [3, 5, 7, 11, 13]) expect(patternCount(gs, p)).toBe(enumeratedPatternCount(gs, p));
+    for (const gs of [[6, 4, 2, 4, 2, 4, 6, 2], [10, 2, 4, 2, 4, 6, 2, 6], [2, 10, 2], [22, 2, 4, 2]]) {
+      for (const p of [3, 5, 7, 11, 13, 17]) expect(patternCount(gs, p)).toBe(enumeratedPatternCount(gs, p));
     }
+    // spans above 60 at levels ≤ 13 walk the cycle; at 17 and 19 the restricted search runs
+    const long = [6, 4, 2, 4, 2, 4, 6, 2, 6, 4, 2, 4, 2, 4, 6, 2];
+    for (const p of [7, 11, 13, 17, 19]) expect(patternCount(long, p)).toBe(enumeratedPatternCount(long, p));
   });
   it('odd gaps never occur, bad patterns are refused', () => {
     expect(patternCount([3], 7)).toBe(0n);

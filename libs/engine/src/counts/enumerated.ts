@@ -1,8 +1,7 @@
 import { MAX_MEMORY_LEVEL, wheelGaps } from '../wheel/level-gaps';
 import { checkLevel, primorial, primorialTotient } from '../wheel/primorial';
-import { histogramFromDense, type GapHistogram } from '../wheel/tally';
+import type { GapHistogram } from '../wheel/tally';
 import { checkPattern, gapCount } from './closed-form';
-import { limitError } from '../errors';
 
 /**
  * Occurrences of a consecutive gap pattern in one period of level p ≤ 23, by walking the gap cycle
@@ -28,23 +27,21 @@ export function enumeratedPatternCount(gaps: readonly number[], p: number): bigi
  * Gap histogram of level p from the closed forms / inclusion–exclusion alone (no enumeration):
  * counts n_g for g = 2, 4, … until Σ n_g = φ(p#) and Σ g·n_g = p# (both checked). An independent
  * path to the wheel histograms; practical while the largest gap stays ≤ ~70 (levels ≤ 37).
- * @throws EngineError(limit) when the gaps run past the inclusion–exclusion span limit.
+ * @throws EngineError(limit) when the gaps run past the inclusion–exclusion span limit (120).
  */
 export function histogramByCounts(p: number): GapHistogram {
   checkLevel(p);
   const phi = primorialTotient(p);
   const mod = primorial(p);
-  const dense: number[] = [];
+  const out = new Map<number, bigint>();
   let members = 0n;
   let length = 0n;
   for (let g = 2; members < phi; g += 2) {
     const n = gapCount(g, p);
-    dense[g >> 1] = Number(n);
-    if (BigInt(dense[g >> 1]!) !== n) throw limitError(`gap count ${n} at level ${p} is above 2^53`);
+    if (n > 0n) out.set(g, n);
     members += n;
     length += BigInt(g) * n;
   }
-  dense[0] = 0;
   if (members !== phi || length !== mod) throw new Error(`internal: level ${p} counts sum to ${members}, ${length}`);
-  return histogramFromDense(Float64Array.from(dense, (v) => v ?? 0));
+  return out;
 }

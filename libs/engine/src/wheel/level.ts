@@ -116,6 +116,12 @@ export function gapHistogram(p: number, maxSteps = DEFAULT_STREAM_STEPS): GapHis
   checkLevel(p, 41);
   if (p <= MAX_MEMORY_LEVEL) return cycleHistogramAndPairSums(wheelGaps(p)).histogram;
   const P = previousPrime(p);
+  if (P <= MAX_MEMORY_LEVEL) {
+    // one pass over the in-memory cycle gives both inputs of the recursion
+    const scan = cycleHistogramAndPairSums(wheelGaps(P));
+    if (histogramMaxGap(scan.histogram) < 2 * p) return nextHistogram(scan.histogram, scan.pairSums, p);
+    return histogramFromDense(streamLevel(p, 1, maxSteps).histogram);
+  }
   const prev = gapHistogram(P, maxSteps);
   if (histogramMaxGap(prev) < 2 * p) return nextHistogram(prev, levelPairSums(P, maxSteps), p);
   return histogramFromDense(streamLevel(p, 1, maxSteps).histogram);

@@ -44,7 +44,8 @@ export function scanGapCycle(gaps: Uint8Array, patternLengths: readonly number[]
     for (let i = 0; i < L - 1; i++) idx = idx * K + (gaps[i % n]! >> 1);
     const bulk = Math.max(0, n - (L - 1));
     for (let i = 0; i < bulk; i++) {
-      idx = (idx % mod) * K + (gaps[i + L - 1]! >> 1);
+      // drop the leading digit (gap i − 1) by subtraction, append gap i + L − 1
+      idx = (idx - (i === 0 ? Math.floor(idx / mod) : gaps[i - 1]! >> 1) * mod) * K + (gaps[i + L - 1]! >> 1);
       dense[idx]!++;
     }
     for (let i = bulk; i < n; i++) {
@@ -63,8 +64,9 @@ export function scanGapCycle(gaps: Uint8Array, patternLengths: readonly number[]
 export function cycleHistogramAndPairSums(gaps: Uint8Array): { histogram: GapHistogram; pairSums: GapHistogram } {
   const n = gaps.length;
   if (n === 0) throw inputError('empty gap cycle');
-  const hist = new Float64Array(128);
-  const t2 = new Float64Array(256);
+  // integer tallies: one period of a level ≤ 23 has fewer than 2^32 gaps
+  const hist = n < 2 ** 32 ? new Uint32Array(128) : new Float64Array(128);
+  const t2 = n < 2 ** 32 ? new Uint32Array(256) : new Float64Array(256);
   let prev = gaps[n - 1]!;
   for (let i = 0; i < n; i++) {
     const g = gaps[i]!;

@@ -106,10 +106,10 @@ describe('pair-tally recursion from the quadruples of the level before', () => {
 
 describe('streamed chunks', () => {
   it('partition the cycle: any split, combined, equals the in-memory scan', () => {
-    for (const [base, target] of [[7, 13], [5, 13], [11, 17], [13, 19]] as const) {
+    for (const [base, target, counts] of [[7, 13, [1, 5]], [5, 13, [3]], [11, 17, [1, 7]], [13, 19, [4]]] as const) {
       const scan = scanGapCycle(wheelGaps(target), [2, 3, 4]);
       for (const L of [1, 2, 3, 4] as const) {
-        for (const count of [1, 5]) {
+        for (const count of counts) {
           const t = combineWheelChunks(planWheelChunks(base, target, count, L, undefined, true).map((s) => runWheelChunk(s, wheelGaps(base))));
           expect(t.maxGap).toBe(scan.maxGap);
           expect(patternsFromDense(t.histogram, 1, t.radix).size).toBe(scan.histogram.size);
@@ -123,7 +123,9 @@ describe('streamed chunks', () => {
   it('round-trip through JSON (for runner processes)', () => {
     const [a, b] = planWheelChunks(5, 11, 2, 3, undefined, true).map((s) => runWheelChunk(s, wheelGaps(5)));
     const back = combineWheelChunks([a!, b!].map((t) => wheelChunkTallyFromJson(JSON.parse(JSON.stringify(wheelChunkTallyToJson(t))))));
-    expect(back).toEqual(combineWheelChunks([a!, b!]));
+    const direct = combineWheelChunks([a!, b!]);
+    expect(JSON.stringify(wheelChunkTallyToJson(back))).toBe(JSON.stringify(wheelChunkTallyToJson(direct)));
+    expect(back.patterns!.length).toBe(65 ** 3);
     expect(() => wheelChunkTallyFromJson({ ...wheelChunkTallyToJson(a!), histogram: [[999, 1]] })).toThrow(/out of range/);
   });
   it('rejects chunk ranges outside the period', () => {
