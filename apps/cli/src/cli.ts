@@ -24,9 +24,13 @@ function overview(): string {
 /** Runs `cribra` with the given arguments; returns the exit code. Never throws. */
 export async function main(argv: readonly string[], io: CommandIo): Promise<number> {
   const [name, ...rest] = argv;
-  if (name === undefined || name === '--help' || name === '-h' || name === 'help') {
+  if (name === undefined) {
+    io.err(overview());
+    return EXIT_USAGE;
+  }
+  if (name === '--help' || name === '-h' || name === 'help') {
     io.out(overview());
-    return name === undefined ? EXIT_USAGE : 0;
+    return 0;
   }
   const command = COMMANDS.find((c) => c.name === name);
   if (!command) {
