@@ -1,0 +1,52 @@
+// `npm run bench [-- FILTER]`: runs the benchmark areas and prints one table of figures.
+// Each area module exports one async function returning rows { name, figure } and prints nothing.
+import { benchNarrow } from './narrow.bench';
+import { benchSieve } from './sieve.bench';
+import { benchWheel } from './wheel.bench';
+
+export interface BenchRow {
+  readonly name: string;
+  readonly figure: string;
+}
+
+const AREAS: ReadonlyArray<{ area: string; run: () => Promise<readonly BenchRow[]> }> = [
+  { area: 'wheel', run: benchWheel },
+  { area: 'sieve', run: benchSieve },
+  { area: 'narrow', run: benchNarrow },
+];
+
+async function bench(filter: string | undefined): Promise<number> {
+  const chosen = AREAS.filter((a) => !filter || a.area.includes(filter.toLowerCase()));
+  if (chosen.length === 0) {
+    process.stderr.write(`bench: no area matches "${filter}" (areas: ${AREAS.map((a) => a.area).join(', ')})\n`);
+    return 2;
+  }
+  const rows: Array<[string, string, string]> = [];
+  let failed = 0;
+  for (const { area, run } of chosen) {
+    process.stderr.write(`bench: ${area} …\n`);
+    try {
+      for (const r of await run()) rows.push([area, r.name, r.figure]);
+    } catch (e) {
+      failed++;
+      rows.push([area, `FAILED: ${e instanceof Error ? e.message.split('\n')[0] : String(e)}`, '—']);
+    }
+  }
+  const header: [string, string, string] = ['area', 'measurement', 'figure'];
+  const widths = [0, 1, 2].map((i) => Math.max(header[i]!.length, ...rows.map((r) => r[i]!.length)));
+  const line = (r: readonly string[]) => `| ${r.map((c, i) => (i === 2 ? c.padStart(widths[i]!) : c.padEnd(widths[i]!))).join(' | ')} |`;
+  const out = [line(header), `|${widths.map((w, i) => (i === 2 ? `${'-'.repeat(w + 1)}:` : '-'.repeat(w + 2))).join('|')}|`, ...rows.map(line)];
+  process.stdout.write(`${out.join('\n')}\n`);
+  process.stdout.write(`(node ${process.version}, ${new Date().toISOString()})\n`);
+  return failed ? 1 : 0;
+}
+
+bench(process.argv[2]).then(
+  (code) => {
+    process.exitCode = code;
+  },
+  (e: unknown) => {
+    process.stderr.write(`bench: ${e instanceof Error ? e.message : String(e)}\n`);
+    process.exitCode = 1;
+  },
+);
