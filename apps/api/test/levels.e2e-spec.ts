@@ -1,4 +1,6 @@
 import type { ComputationView, LedgerRangeView, WheelLevelSummary, WheelLevelView } from '@cribra/contracts';
+import { Pool } from 'pg';
+import { PgDataProvider } from '../../runner/src/data/pg-data-provider';
 import { NO_SUCH_ID, person, type Person } from './helpers/notebooks';
 import { QueueStack, waitFor } from './helpers/queue-stack';
 import { Client } from './helpers/test-app';
@@ -46,6 +48,19 @@ describe('levels, ledger and computations', () => {
     const list = (await me.client.call('get', '/api/levels')).body as WheelLevelSummary[];
     expect(list.map((l) => l.prime)).toContain(11);
     expect((await me.client.call('post', '/api/levels/11/computations')).body.id).toBe(first.body.id);
+
+    // What a Sift cell sees through the runner's data provider: the same level, with exact bigints.
+    const pool = new Pool({ connectionString: stack.url, max: 1 });
+    try {
+      const provider = new PgDataProvider(pool, { notebookId: NO_SUCH_ID, runnerId: 'test', maxInlineBlocks: 0, requestLedger: async () => undefined, onNote: () => undefined });
+      const seen = await provider.level(11);
+      expect(seen).toMatchObject({ prime: 11, modulus: 2310n, phi: 480n, largestGap: 14 });
+      expect(seen!.histogram).toEqual(level.histogram.map((h) => ({ gap: h.gap, count: BigInt(h.count) })));
+      expect(await provider.level(13)).toBeNull();
+      expect(await provider.upload('none')).toBeNull();
+    } finally {
+      await pool.end();
+    }
   });
 
   it('refuses levels that are not primes or too deep (400) and unknown ones (404)', async () => {

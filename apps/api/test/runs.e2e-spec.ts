@@ -2,6 +2,8 @@ import type { AddressInfo } from 'node:net';
 import http from 'node:http';
 import { outputsDigest, type SiftOutput } from '@cribra/lang';
 import type { RunView } from '@cribra/contracts';
+import request from 'supertest';
+import { CSRF_HEADER } from '@cribra/contracts';
 import { addCell, addMember, createNotebook, NO_SUCH_ID, person, type Person } from './helpers/notebooks';
 import { QueueStack, waitFor } from './helpers/queue-stack';
 
@@ -109,6 +111,45 @@ describe('runs', () => {
       const nbHistory = await viewer.client.call('get', `/api/notebooks/${nb.id}/runs`);
       expect(nbHistory.status).toBe(403); // the viewer is not a member of this notebook
       expect((await owner.client.call('get', `/api/notebooks/${nb.id}/runs`)).body.total).toBe(3);
+    });
+
+    it('stops a running cell when it is cancelled, freeing the runner for the next one', async () => {
+      const slow = await addCell(owner, notebookId, 'primepi(10^12)');
+      const queued = (await owner.client.call('post', `/api/cells/${slow.id}/runs`)).body as RunView;
+      await waitFor('the slow run to start', async () => ((await getRun(queued.id)).status === 'running' ? true : undefined));
+      const cancelled = await owner.client.call('post', `/api/runs/${queued.id}/cancel`);
+      expect(cancelled.body.status).toBe('cancelled');
+      const quick = await addCell(owner, notebookId, 'primorial(11)');
+      const started = Date.now();
+      const next = await finished((await owner.client.call('post', `/api/cells/${quick.id}/runs`)).body.id);
+      expect(next.status).toBe('succeeded');
+      expect(Date.now() - started).toBeLessThan(20_000); // far below the 60 s limit the slow cell would use
+      expect((await getRun(queued.id)).status).toBe('cancelled');
+    });
+
+    it('reads uploads and the prime ledger through the PostgreSQL data provider', async () => {
+      const token = owner.client.csrf ?? (await owner.client.fetchCsrf());
+      const up = await request(stack.app.getHttpServer())
+        .post(`/api/notebooks/${notebookId}/uploads`)
+        .set('Cookie', [...owner.client.jar].map(([k, v]) => `${k}=${v}`).join('; '))
+        .set(CSRF_HEADER, token)
+        .attach('file', Buffer.from('# a 5-tuple\n0\n2\n6\n8\n12\n'), { filename: 'quintuple.txt', contentType: 'text/plain' });
+      expect(up.status).toBe(201);
+      const cell = await addCell(owner, notebookId, 'size(upload("quintuple"))\nledger(0..19999999)');
+      const run = await finished((await owner.client.call('post', `/api/cells/${cell.id}/runs`)).body.id);
+      expect(run.status).toBe('succeeded');
+      expect(run.outputs![0]).toMatchObject({ text: '5' });
+      // π(2·10^7) = 1270607 (value from memory; also checked against the engine in levels.e2e-spec).
+      expect(run.outputs![1].text).toContain('primes: 1270607');
+      // The two whole ledger blocks of the range were missing: the cell computed and stored them.
+      const blocks = await stack.db.query(`SELECT block_index, computed_by FROM ledger_blocks ORDER BY block_index`);
+      expect(blocks).toEqual([
+        { block_index: 0, computed_by: 'runs-a' },
+        { block_index: 1, computed_by: 'runs-a' },
+      ]);
+      const missingUpload = await addCell(owner, notebookId, 'upload("nothing")');
+      const failed = await finished((await owner.client.call('post', `/api/cells/${missingUpload.id}/runs`)).body.id);
+      expect(failed.error?.message).toContain('no upload named "nothing"');
     });
 
     it('refuses note cells (400), viewers and outsiders (403) and unknown ids (404)', async () => {

@@ -1,8 +1,8 @@
 import type { RunnerConfig } from '../runner-config';
-import { InThreadExecutor } from './lang-executor';
+import { PoolExecutor } from './lang-executor';
 import type { SiftExecutor } from './sift-executor';
 
-/** The executor this runner uses (see lang-executor.ts). */
-export async function createExecutor(_cfg: RunnerConfig): Promise<SiftExecutor> {
-  return new InThreadExecutor();
+/** The executor of this runner: Sift's worker pool with one thread per slot. */
+export async function createExecutor(cfg: RunnerConfig): Promise<SiftExecutor> {
+  return new PoolExecutor(cfg.slots);
 }

@@ -1,14 +1,13 @@
-import { evaluate, type RunResult } from '@cribra/lang';
+import type { RunResult } from '@cribra/lang';
+import { SiftPool } from '@cribra/lang/node';
 import type { RunError, RunOutput } from '@cribra/contracts';
-import { PrefetchDataAccess } from './prefetch-data-access';
 import type { SiftExecutor, SiftRequest, SiftResult } from './sift-executor';
 
-/** Passes over one cell at most (each pass may discover more data to fetch). */
-const MAX_PASSES = 6;
-
+/** A Sift run result as the runner stores it (digest only for a successful run). */
 export function toSiftResult(r: RunResult): SiftResult {
-  const error: RunError | null = r.error
-    ? { kind: r.error.kind as RunError['kind'], message: r.error.message, ...('line' in r.error && r.error.line ? { line: r.error.line, column: r.error.column } : {}) }
+  const e = r.error;
+  const error: RunError | null = e
+    ? { kind: e.kind as RunError['kind'], message: e.message, ...('line' in e && e.line ? { line: e.line, column: e.column } : {}) }
     : null;
   return {
     outputs: r.outputs as unknown as RunOutput[],
@@ -20,33 +19,23 @@ export function toSiftResult(r: RunResult): SiftResult {
 }
 
 /**
- * Executes cells in this thread with @cribra/lang's `evaluate`, within its limits. Data is served
- * through PrefetchDataAccess (evaluate again after fetching what a pass asked for).
+ * Executes cells in @cribra/lang's worker pool: one worker thread per runner slot, with the
+ * language's limits (steps, time, heap), cancellation through the abort signal, and the cell's
+ * data served from PostgreSQL through the pool's synchronous bridge.
  */
-export class InThreadExecutor implements SiftExecutor {
+export class PoolExecutor implements SiftExecutor {
+  private readonly pool: SiftPool;
+
+  constructor(threads: number) {
+    this.pool = new SiftPool({ threads });
+  }
+
   async execute(req: SiftRequest): Promise<SiftResult> {
-    const data = new PrefetchDataAccess(req.provider);
-    let result: RunResult | null = null;
-    for (let pass = 0; pass < MAX_PASSES; pass++) {
-      if (req.signal.aborted) break;
-      result = evaluate(req.source, {
-        data,
-        onProgress: (f, note) => req.onProgress(f, note),
-        shouldStop: () => req.signal.aborted,
-      });
-      if (!(await data.fill())) break;
-    }
-    if (!result || req.signal.aborted) {
-      return {
-        outputs: result ? (result.outputs as unknown as RunOutput[]) : [],
-        digest: null,
-        error: { kind: 'cancelled', message: 'the run was cancelled' },
-        languageVersion: result?.languageVersion ?? '',
-        engineVersion: result?.engineVersion ?? '',
-      };
-    }
+    const result = await this.pool.run(req.source, { data: req.provider, onProgress: req.onProgress, signal: req.signal });
     return toSiftResult(result);
   }
 
-  async close(): Promise<void> {}
+  async close(): Promise<void> {
+    await this.pool.close();
+  }
 }
