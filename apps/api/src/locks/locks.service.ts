@@ -1,13 +1,9 @@
 import { ConflictException, Inject, Injectable, NotFoundException } from '@nestjs/common';
 import type { ConfigType } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
-import { createHash } from 'node:crypto';
 import { DataSource } from 'typeorm';
-import { ENGINE_VERSION } from '@cribra/engine';
-import { LANG_VERSION } from '@cribra/lang';
 import {
   NOTEBOOK_TITLE_MAX,
-  REVISION_DIGEST_VERSION,
   type DuplicateNotebookResponse,
   type LockExportFormat,
   type LockRecord,
@@ -16,10 +12,11 @@ import {
 import { AuditService } from '../audit/audit.service';
 import { appConfig } from '../config/app.config';
 import type { Actor } from '../members/notebook-policy.service';
-import { loadDigestCells, revisionDigestOf } from '../reviews/revision-digest';
+import { loadDigestCells, revisionDigest } from '../reviews/revision-digest';
 import { ReviewsService } from '../reviews/reviews.service';
 import { VerificationsService } from '../reviews/verifications.service';
 import { DuplicateNotebookDto } from './dto/duplicate-notebook.dto';
+import { freezeNotebook } from './freeze-notebook';
 import { lockRecordMarkdown } from './lock-markdown';
 
 export interface LockFile {
@@ -27,8 +24,6 @@ export interface LockFile {
   mediaType: string;
   body: string;
 }
-
-const distinct = (xs: Array<string | null>): string[] => [...new Set(xs.filter((x): x is string => !!x))].sort();
 
 /** Locking a signed-off notebook, its lock record (read, export, check) and duplication into a draft. */
 @Injectable()
@@ -54,56 +49,16 @@ export class LocksService {
         [notebookId],
       );
       if (!nb) throw new NotFoundException('Notebook not found');
-      const cells = await loadDigestCells(m, notebookId);
-      const digest = revisionDigestOf(cells);
+      const digest = await revisionDigest(m, notebookId);
       const signoffs = await this.reviews.validSignoffs(m, notebookId, digest);
       const blockers = await this.reviews.lockBlockers(m, nb, signoffs.length);
       if (blockers.length) throw new ConflictException({ message: `Cannot lock: ${blockers.join('; ')}`, details: { blockers } });
-      const [me] = await m.query(`SELECT display_name FROM users WHERE id = $1`, [actor.id]);
-      const [{ now }] = await m.query(`SELECT now() AS now`);
-      const record: LockRecord = {
-        notebookId,
-        title: nb.title,
-        notebookRevision: nb.revision,
-        revisionDigest: digest,
-        digestVersion: REVISION_DIGEST_VERSION,
-        lockedBy: { id: actor.id, displayName: me?.display_name ?? '' },
-        lockedAt: new Date(now).toISOString(),
-        signers: signoffs.map((s) => ({
-          reviewId: s.id,
-          user: { id: s.reviewer_id, displayName: s.reviewer_name },
-          signedAt: new Date(s.created_at).toISOString(),
-          verificationId: s.verification_id,
-          comment: s.comment,
-        })),
-        requiredSignoffs: nb.required_signoffs,
-        engineVersion: ENGINE_VERSION,
-        languageVersion: LANG_VERSION,
-        runEngineVersions: distinct(cells.map((c) => c.engineVersion)),
-        runLanguageVersions: distinct(cells.map((c) => c.languageVersion)),
-        cells: cells.map((c) => ({
-          id: c.id,
-          position: c.position,
-          kind: c.kind,
-          sourceSha256: createHash('sha256').update(c.source, 'utf8').digest('hex'),
-          source: c.source,
-          outputDigest: c.outputDigest,
-          runId: c.runId,
-          engineVersion: c.engineVersion,
-          languageVersion: c.languageVersion,
-        })),
-      };
-      await m.query(
-        `INSERT INTO notebook_locks (notebook_id, locked_by, locked_at, revision_digest, notebook_revision, record)
-         VALUES ($1, $2, $3, $4, $5, $6)`,
-        [notebookId, actor.id, now, digest, nb.revision, JSON.stringify(record)],
-      );
-      await m.query(`UPDATE notebooks SET status = 'locked', updated_at = now() WHERE id = $1`, [notebookId]);
+      const record = await freezeNotebook(m, notebookId, actor.id);
       await this.audit.record(
         actor.id,
         'notebook.lock',
         notebookId,
-        { revisionDigest: digest, signers: record.signers.map((s) => s.user.id) },
+        { revisionDigest: record.revisionDigest, signers: record.signers.map((s) => s.user.id) },
         m,
       );
       return record;
