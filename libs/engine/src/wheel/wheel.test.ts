@@ -98,6 +98,9 @@ describe('pair-tally recursion from the quadruples of the level before', () => {
       expect(nextPairTally(quads, p)).toEqual(scanGapCycle(wheelGaps(p), [2]).patterns.get(2)!);
     }
   });
+  it('refuses levels whose gaps could put two removed members side by side', () => {
+    expect(() => nextPairTally(new Map([['2,14,2,4', 1n]]), 7)).toThrow(/gaps of 5# below 14, found 14/);
+  });
   it('gives the pair sums of 23# used by the 29# histogram', () => {
     const quads = scanGapCycle(wheelGaps(19), [4]).patterns.get(4)!;
     expect(pairSums(nextPairTally(quads, 23))).toEqual(cycleHistogramAndPairSums(wheelGaps(23)).pairSums);
