@@ -3,10 +3,16 @@ import { fileURLToPath } from 'node:url';
 /** Root of the repository (for seeds-demo/ and docs/screenshots/). */
 export const repoRoot = fileURLToPath(new URL('../../../../', import.meta.url));
 
-/** BASE_URL of the stack `npm test` started (e.g. http://127.0.0.1:4320); the e2e tests need it. */
+const isHttp = (v: string | undefined): v is string => !!v && /^https?:\/\//.test(v);
+
+/**
+ * The stack `npm test` started (e.g. http://127.0.0.1:4320). Vitest overwrites process.env.BASE_URL
+ * with Vite's base path ('/'), so an absolute BASE_URL is used when it survives, else PUBLIC_URL,
+ * which the launcher sets to the same address.
+ */
 export function baseUrl(): string {
-  const url = process.env.BASE_URL;
-  if (!url) throw new Error('BASE_URL is not set: run the browser tests through `npm test`, which starts the stack.');
+  const url = [process.env.E2E_BASE_URL, process.env.BASE_URL, process.env.PUBLIC_URL].find(isHttp);
+  if (!url) throw new Error('No stack address (BASE_URL / PUBLIC_URL): run the browser tests through `npm test`, which starts the stack.');
   return url.replace(/\/$/, '');
 }
 
