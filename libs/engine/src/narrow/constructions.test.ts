@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { admissibility } from '../tuple';
 import { greedyGreedySieve } from './greedy-greedy';
 import { hensleyRichardsTuple } from './hensley-richards';
 import { improveTuple } from './improve-tuple';
@@ -18,9 +19,12 @@ describe('greedy-greedy sieve', () => {
     expect(r.diameter).toBe(388118);
     expect(r.origin).toBe(-185662);
     expect(r.method).toBe('greedy-greedy');
-    // Independent check of the witness on the unshifted survivors.
+    // Independent checks: this module on the unshifted survivors, the tuple module on the tuple.
     const survivors = r.tuple.map((h) => h + r.origin);
     expect(narrowAdmissibility(survivors).admissible).toBe(true);
+    const theirs = admissibility(r.tuple);
+    expect(theirs).toMatchObject({ admissible: true, k: 34429, diameter: 388118 });
+    if (theirs.admissible) expect(theirs.witness).toEqual(r.witness);
   });
 
   it('a fixed bound below 137 leaves a different set (so the rule is pinned down)', () => {
