@@ -5,12 +5,12 @@ import { wordIndex, wordPattern, type WordPattern } from './presieve-words';
 import { RESIDUES, RESIDUE_BIT, popcount32 } from './wheel30';
 
 /** Bytes of one piece sieved by the small primes at a time (the L1 data cache). */
-const L1_BYTES = 1 << 15;
+const L1_BYTES = 1 << 14;
 /** Primes below this bound have several hits per L1 piece and are sieved piece by piece. */
 const SMALL_PRIME_BOUND = 1 << 13;
 
 /** Bytes per sieve segment (each byte spans 30 integers); sized for the L2 cache. */
-export const SEGMENT_BYTES = 1 << 20;
+export const SEGMENT_BYTES = 1 << 19;
 
 /** Statistics of one constellation pattern over a block (numbers; −1 for "none"). */
 export interface CorePatternResult {
