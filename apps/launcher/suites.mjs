@@ -17,7 +17,7 @@ export const SUITES = [
 function commandFor(suite, report) {
   const node = process.execPath;
   if (suite.name === 'api') {
-    return [node, [join(ROOT, 'node_modules/jest/bin/jest.js'), '--config', 'apps/api/jest.config.js', '--runInBand', '--json', `--outputFile=${report}`]];
+    return [node, [join(ROOT, 'node_modules/jest/bin/jest.js'), '--config', 'apps/api/jest.config.js', '--runInBand', '--forceExit', '--json', `--outputFile=${report}`]];
   }
   return [node, [join(ROOT, 'node_modules/vitest/vitest.mjs'), 'run', '--project', suite.name, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`]];
 }
