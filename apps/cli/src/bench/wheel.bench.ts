@@ -36,6 +36,8 @@ export async function benchWheel(): Promise<Array<{ name: string; figure: string
   const c37 = await time(() => histogramByCounts(37));
   const same = [...c37.value].every(([g, v]) => h37.value.get(g) === v) && c37.value.size === h37.value.size;
   out.push({ name: `37# histogram by inclusion–exclusion (${same ? 'equal' : 'DIFFERENT'})`, figure: s(c37.seconds) });
+  const c41 = await time(() => histogramByCounts(41));
+  out.push({ name: `41# histogram by inclusion–exclusion (max gap ${Math.max(...c41.value.keys())})`, figure: s(c41.seconds) });
   // streaming 31# itself with pair tallies: measure 16 of 899 copies on 2 workers, extrapolate
   const specs = planWheelChunks(23, 31, 899, 2).slice(0, 16);
   const part = await time(() => runWheelChunksParallel(specs, { workers: 2 }));

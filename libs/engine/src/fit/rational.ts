@@ -27,15 +27,20 @@ export function rational(num: bigint, den = 1n): Rational {
   return g > 1n ? { num: num / g, den: den / g } : { num, den };
 }
 
+/** a + b. */
 export const ratAdd = (a: Rational, b: Rational): Rational => rational(a.num * b.den + b.num * a.den, a.den * b.den);
+/** a − b. */
 export const ratSub = (a: Rational, b: Rational): Rational => rational(a.num * b.den - b.num * a.den, a.den * b.den);
+/** a · b. */
 export const ratMul = (a: Rational, b: Rational): Rational => rational(a.num * b.num, a.den * b.den);
 /** a / b. @throws EngineError(domain) when b = 0. */
 export const ratDiv = (a: Rational, b: Rational): Rational => {
   if (b.num === 0n) throw domainError('division of a rational by zero');
   return rational(a.num * b.den, a.den * b.num);
 };
+/** a = 0. */
 export const ratIsZero = (a: Rational): boolean => a.num === 0n;
+/** a = b (both in lowest terms). */
 export const ratEquals = (a: Rational, b: Rational): boolean => a.num === b.num && a.den === b.den;
 /** "a" for integers, "a/b" otherwise. */
 export const ratToString = (a: Rational): string => (a.den === 1n ? `${a.num}` : `${a.num}/${a.den}`);

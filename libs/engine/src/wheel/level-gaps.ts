@@ -1,4 +1,4 @@
-import { inputError, limitError } from '../errors';
+import { limitError } from '../errors';
 import { checkLevel, previousPrime } from './primorial';
 
 /** Deepest level whose whole gap cycle is built in memory (23#: 36 495 360 gaps, one byte each). */
@@ -73,9 +73,4 @@ export function wheelMembers(p: number): Float64Array {
     m += gaps[i]!;
   }
   return out;
-}
-
-/** Asserts a gap cycle is non-empty (helper for scans). */
-export function checkGapCycle(gaps: Uint8Array): void {
-  if (gaps.length === 0) throw inputError('empty gap cycle');
 }
