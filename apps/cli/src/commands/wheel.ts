@@ -8,7 +8,7 @@ import { parseFlags, requireFlag, WORKERS_FLAG, workersFlag } from '../options';
 
 // Levels from here on stream the previous level's members: share them between worker threads.
 const PARALLEL_FROM = 37;
-const MAX_LEVEL = 41;
+const MAX_LEVEL = 37;
 
 export const wheelCommand: Command = {
   name: 'wheel',

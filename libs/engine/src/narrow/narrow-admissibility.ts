@@ -7,6 +7,31 @@ export type NarrowAdmissibility =
   | { readonly admissible: true; readonly witness: ResidueWitness }
   | { readonly admissible: false; readonly prime: number; readonly covered: readonly number[] };
 
+const MEMBER_BITMAP_LIMIT = 1 << 26;
+
+/**
+ * The least residue r in [0, q) whose class holds no element (element x ↔ member[x − base]), or −1
+ * when the probes exceed `budget` before one is found (the caller then walks all residues).
+ */
+function probeFreeClass(member: Uint8Array, span: number, base: number, q: number, budget: number): number {
+  let probes = 0;
+  let start = (((0 - base) % q) + q) % q; // offset of the first integer ≡ 0 (mod q) in the span
+  for (let r = 0; r < q; r++) {
+    let hit = false;
+    for (let i = start; i <= span; i += q) {
+      probes++;
+      if (member[i]) {
+        hit = true;
+        break;
+      }
+    }
+    if (!hit) return r;
+    if (probes > budget) return -1;
+    if (++start === q) start = 0;
+  }
+  return -1;
+}
+
 /** Largest tuple size accepted by the narrow-tuple code (memory: one bitmap of q bytes per prime q ≤ k). */
 export const NARROW_MAX_K = 1_000_000;
 
@@ -33,7 +58,21 @@ export function narrowAdmissibility(elements: readonly number[]): NarrowAdmissib
   const gaps = new Float64Array(k);
   for (let i = 1; i < k; i++) gaps[i] = sorted[i] - sorted[i - 1];
   const seen = new Int32Array(k + 1).fill(-1);
+  // Membership bitmap over [min, max]: a class r is free when no element of the class lies in
+  // the span, found by probing r, r + q, … (span/q probes). Free classes are plentiful for most q,
+  // so this beats marking all k residues; the walk below is the fallback when probing drags on.
+  const base = sorted[0];
+  const span = sorted[k - 1] - base;
+  const member = span < MEMBER_BITMAP_LIMIT ? new Uint8Array(span + 1) : null;
+  if (member) for (let i = 0; i < k; i++) member[sorted[i] - base] = 1;
   for (const q of primesUpTo(k)) {
+    if (member) {
+      const free = probeFreeClass(member, span, base, q, k);
+      if (free >= 0) {
+        witness[q] = free;
+        continue;
+      }
+    }
     let r = sorted[0] % q;
     if (r < 0) r += q;
     let covered = 0;
