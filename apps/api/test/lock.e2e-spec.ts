@@ -88,6 +88,33 @@ describe('locking', () => {
   });
 });
 
+describe('an edit racing with a lock', () => {
+  it('is refused by the trigger and answered 409, not 500', async () => {
+    const { client: owner } = await newMember(app, 'owner');
+    const nb = await createNotebook(owner, 'Race');
+    created.push(nb.id);
+    const cell = nb.cells[0];
+    // A transaction that locks the notebook row and sets it locked, as a lock does, and commits
+    // while the edit (already past the policy check) waits for the row.
+    const pg = new PgClient({ connectionString: process.env.DATABASE_URL });
+    await pg.connect();
+    try {
+      await pg.query('BEGIN');
+      await pg.query(`UPDATE notebooks SET status = 'locked' WHERE id = $1`, [nb.id]);
+      const edit = owner.call('put', `/api/cells/${cell.id}`, { revision: cell.revision, source: 'show 0' });
+      await new Promise((r) => setTimeout(r, 400));
+      await pg.query('COMMIT');
+      const res = await edit;
+      expectStatus(res, 409);
+      expect(res.body.details).toEqual({ reason: 'notebook_locked', notebookId: nb.id });
+    } finally {
+      await pg.end();
+    }
+    const [{ source }] = await db.query(`SELECT source FROM cells WHERE id = $1`, [cell.id]);
+    expect(source).toBe(cell.source);
+  });
+});
+
 describe('a locked notebook', () => {
   let owner: Client;
   let viewer: Client;

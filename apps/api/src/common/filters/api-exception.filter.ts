@@ -2,6 +2,7 @@ import { ArgumentsHost, Catch, ExceptionFilter, HttpException, HttpStatus, Logge
 import { STATUS_CODES } from 'node:http';
 import type { Response } from 'express';
 import type { ApiError } from '@cribra/contracts';
+import { lockedWriteError } from '../../locks/locked-write-error';
 
 /**
  * Shapes every error as `{statusCode, error, message, details?}`. Unknown errors become a 500
@@ -40,6 +41,8 @@ export class ApiExceptionFilter implements ExceptionFilter {
       const message = e.type === 'entity.parse.failed' ? 'The request body is not valid JSON' : (e.message ?? 'Bad request');
       return { statusCode: status, error: STATUS_CODES[status] ?? 'Error', message };
     }
+    const locked = lockedWriteError(exception);
+    if (locked) return locked;
     return { statusCode: HttpStatus.INTERNAL_SERVER_ERROR, error: 'Internal Server Error', message: 'Something went wrong on the server' };
   }
 }
