@@ -6,6 +6,7 @@ import { join } from 'node:path';
 import { DataSource } from 'typeorm';
 import { dataSourceOptions } from '../database/data-source';
 import { DemoUser, seedDemoUsers } from './seed-users';
+import { DemoNotebookManifest, seedDemoNotebooks, seedStoredLevels } from './seed-notebooks';
 
 /** seeds-demo/ at the repository root (same depth from src/demo and dist/demo). */
 export const SEEDS_DIR = join(__dirname, '..', '..', '..', '..', 'seeds-demo');
@@ -23,6 +24,20 @@ const STEPS: Step[] = [
       const { users } = readSeedJson<{ users: DemoUser[] }>('users.json');
       const { created } = await seedDemoUsers(ds, users);
       return created.length ? `created ${created.length} account(s)` : 'all accounts present';
+    },
+  },
+  {
+    name: 'notebooks',
+    run: async (ds) => {
+      const created = await seedDemoNotebooks(ds, SEEDS_DIR, readSeedJson<DemoNotebookManifest>('notebooks.json'));
+      return created.length ? `created ${created.map((t) => `"${t}"`).join(', ')}` : 'all notebooks present';
+    },
+  },
+  {
+    name: 'stored levels',
+    run: async (ds) => {
+      const n = await seedStoredLevels(ds, String((ds.options as { url?: string }).url));
+      return n ? `queued ${n} wheel level(s) up to 23# for the runners` : 'levels up to 23# stored or queued';
     },
   },
 ];
