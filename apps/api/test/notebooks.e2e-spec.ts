@@ -141,4 +141,30 @@ describe('notebooks and members', () => {
     const all = (await admin.client.call('get', '/api/notebooks?q=wheel&pageSize=100')).body as Page<NotebookSummary>;
     expect(all.items.map((n) => n.title)).toEqual(expect.arrayContaining(['Private wheel notes', 'Shared wheel study']));
   });
+
+  it('documents every notebook route in the OpenAPI document at /api/docs', async () => {
+    const res = await owner.client.call('get', '/api/docs-json');
+    expect(res.status).toBe(200);
+    const paths = Object.keys(res.body.paths);
+    for (const p of [
+      '/api/notebooks',
+      '/api/notebooks/{id}',
+      '/api/notebooks/{id}/members',
+      '/api/notebooks/{id}/cells',
+      '/api/notebooks/{id}/cells/order',
+      '/api/cells/{id}',
+      '/api/cells/{id}/runs',
+      '/api/notebooks/{id}/runs',
+      '/api/runs/{id}/cancel',
+      '/api/notebooks/{id}/events',
+      '/api/levels/{prime}/computations',
+      '/api/ledger/range',
+      '/api/notebooks/{id}/uploads',
+      '/api/notebooks/{id}/export',
+      '/api/computations/{id}',
+    ]) {
+      expect(paths).toContain(p);
+    }
+    expect(res.body.components.schemas.CreateNotebookDto.required).toEqual(['title']);
+  });
 });
