@@ -75,6 +75,22 @@ describe('locking', () => {
     expect((await owner.call('get', `/api/notebooks/${nb.id}/review`)).body.canLock).toBe(false);
   });
 
+  it('counts only sign-offs of people who are still reviewers', async () => {
+    const { client: owner } = await newMember(app, 'owner');
+    const { nb } = await signedOff(owner, 1, 1);
+    expect((await owner.call('get', `/api/notebooks/${nb.id}/review`)).body.canLock).toBe(true);
+    const members = (await owner.call('get', `/api/notebooks/${nb.id}/members`)).body as Array<{ userId: string; role: string }>;
+    const reviewerId = members.find((m) => m.role === 'reviewer')!.userId;
+    expectStatus(await owner.call('patch', `/api/notebooks/${nb.id}/members/${reviewerId}`, { role: 'viewer' }), 200);
+    const state = (await owner.call('get', `/api/notebooks/${nb.id}/review`)).body;
+    expect(state.validSignoffs).toHaveLength(0);
+    expectStatus(await owner.call('post', `/api/notebooks/${nb.id}/lock`), 409);
+    const reviews = (await owner.call('get', `/api/notebooks/${nb.id}/reviews`)).body;
+    expect(reviews[0]).toMatchObject({ decision: 'signoff', valid: false, voidedAt: null });
+    expectStatus(await owner.call('patch', `/api/notebooks/${nb.id}/members/${reviewerId}`, { role: 'reviewer' }), 200);
+    expectStatus(await owner.call('post', `/api/notebooks/${nb.id}/lock`), 201);
+  });
+
   it('an admin who is not a member may lock; an editor or reviewer may not', async () => {
     const { client: owner } = await newMember(app, 'owner');
     const { nb, reviewers } = await signedOff(owner);

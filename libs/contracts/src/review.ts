@@ -249,7 +249,7 @@ export interface ReviewView {
   /** A sign-off is void once the notebook's revision digest moved on. */
   voidedAt: string | null;
   voidReason: string | null;
-  /** signoff, not voided, and bound to the current revision digest. */
+  /** signoff, not voided, bound to the current revision digest, by someone still a reviewer of the notebook. */
   valid: boolean;
 }
 

@@ -4,6 +4,7 @@ import { ENGINE_VERSION } from '@cribra/engine';
 import { LANG_VERSION } from '@cribra/lang';
 import { REVISION_DIGEST_VERSION, type LockRecord } from '@cribra/contracts';
 import { loadDigestCells, revisionDigestOf } from '../reviews/revision-digest';
+import { stillReviewer } from '../reviews/still-reviewer';
 
 const distinct = (xs: Array<string | null>): string[] => [...new Set(xs.filter((x): x is string => !!x))].sort();
 
@@ -24,6 +25,7 @@ export async function freezeNotebook(m: EntityManager, notebookId: string, locke
       `SELECT r.id, r.reviewer_id, u.display_name AS reviewer_name, r.created_at, r.verification_id, r.comment
          FROM reviews r JOIN users u ON u.id = r.reviewer_id
         WHERE r.notebook_id = $1 AND r.decision = 'signoff' AND r.voided_at IS NULL AND r.revision_digest = $2
+          AND ${stillReviewer('r')}
         ORDER BY r.created_at`,
       [notebookId, digest],
     );

@@ -10,6 +10,7 @@ import type { Actor } from '../members/notebook-policy.service';
 import { CreateReviewDto } from './dto/create-review.dto';
 import { RequestReviewDto } from './dto/request-review.dto';
 import { revisionDigest } from './revision-digest';
+import { stillReviewer } from './still-reviewer';
 import { VerificationsService } from './verifications.service';
 
 interface ReviewRow {
@@ -95,14 +96,25 @@ export class ReviewsService {
 
   async list(notebookId: string): Promise<ReviewView[]> {
     const digest = await revisionDigest(this.db, notebookId);
-    const rows: ReviewRow[] = await this.db.query(`${SELECT_REVIEWS} WHERE r.notebook_id = $1 ORDER BY r.created_at DESC`, [notebookId]);
-    return rows.map((r) => toView(r, digest));
+    const rows: Array<ReviewRow & { still_reviewer: boolean }> = await this.db.query(
+      `SELECT x.*, ${stillReviewer('x')} AS still_reviewer
+         FROM (${SELECT_REVIEWS} WHERE r.notebook_id = $1) x ORDER BY x.created_at DESC`,
+      [notebookId],
+    );
+    return rows.map((r) => {
+      const view = toView(r, digest);
+      return { ...view, valid: view.valid && r.still_reviewer };
+    });
   }
 
-  /** Valid sign-offs: decision signoff, not voided, bound to `digest`. */
+  /**
+   * Valid sign-offs: decision signoff, not voided, bound to `digest`, by someone who is still a
+   * reviewer of the notebook (a sign-off stops counting when its author is removed or demoted).
+   */
   async validSignoffs(db: DataSource | EntityManager, notebookId: string, digest: string): Promise<ReviewRow[]> {
     return db.query(
       `${SELECT_REVIEWS} WHERE r.notebook_id = $1 AND r.decision = 'signoff' AND r.voided_at IS NULL AND r.revision_digest = $2
+          AND ${stillReviewer('r')}
         ORDER BY r.created_at`,
       [notebookId, digest],
     );
