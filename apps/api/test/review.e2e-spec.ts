@@ -178,6 +178,15 @@ describe('the review flow', () => {
     });
     expectStatus(noVerification, 400);
     expect(noVerification.body.details[0].field).toBe('verificationId');
+    // The owner's re-verify does not stand for the reviewer's own.
+    const ownerCheck = await owner.call('post', `/api/notebooks/${nb.id}/verifications`);
+    const ownerDone = await waitVerification(owner, ownerCheck.body.id);
+    expect(ownerDone.allSame).toBe(true);
+    const notMine = await reviewer.call('post', `/api/notebooks/${nb.id}/reviews`, {
+      decision: 'signoff', comment: 'fine', revisionDigest: state.revisionDigest, verificationId: ownerDone.id,
+    });
+    expectStatus(notMine, 400);
+    expect(notMine.body.message).toMatch(/yourself/);
     const bad = await reviewer.call('post', `/api/notebooks/${nb.id}/reviews`, { decision: 'maybe', comment: '', revisionDigest: 'x' });
     expectStatus(bad, 400);
     expect(bad.body.details.map((d: { field: string }) => d.field).sort()).toEqual(['comment', 'decision', 'revisionDigest']);

@@ -265,8 +265,8 @@ export interface CreateReviewBody {
   /** The revision digest the reviewer looked at; 409 when the notebook changed since. */
   revisionDigest: string;
   /**
-   * Required for 'signoff': a finished re-verify of this same revision digest in which every
-   * executable cell is 'same'.
+   * Required for 'signoff': a finished re-verify of this same revision digest, started by the
+   * reviewer, in which every executable cell is 'same'.
    */
   verificationId?: string;
 }

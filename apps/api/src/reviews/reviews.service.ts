@@ -214,6 +214,13 @@ export class ReviewsService {
             details: [{ field: 'verificationId', messages: ['not a re-verify of this revision'] }],
           });
         }
+        // A sign-off says "I re-ran it": the re-verify must be the reviewer's own.
+        if (v.requestedBy.id !== actor.id) {
+          throw new BadRequestException({
+            message: 'Sign off on a re-verify you ran yourself',
+            details: [{ field: 'verificationId', messages: ['started by someone else'] }],
+          });
+        }
         if (v.status !== 'done') throw new ConflictException('The re-verify is still running; wait for it to finish');
         if (!v.allSame) {
           throw new ConflictException({
