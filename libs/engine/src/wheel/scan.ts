@@ -38,18 +38,19 @@ export function scanGapCycle(gaps: Uint8Array, patternLengths: readonly number[]
   for (let h = 0; h < K; h++) if (first[h]! >= 0) firstPosition.set(2 * h, first[h]!);
   const patterns = new Map<number, PatternTally>();
   for (const L of patternLengths) {
-    const dense = new Float64Array(K ** L);
-    let idx = 0;
+    const dense = n < 2 ** 32 ? new Uint32Array(K ** L) : new Float64Array(K ** L);
     const mod = K ** (L - 1);
-    for (let i = 0; i < L - 1; i++) idx = idx * K + (gaps[i % n]! >> 1);
-    const bulk = Math.max(0, n - (L - 1));
-    for (let i = 0; i < bulk; i++) {
-      // drop the leading digit (gap i − 1) by subtraction, append gap i + L − 1
-      idx = (idx - (i === 0 ? Math.floor(idx / mod) : gaps[i - 1]! >> 1) * mod) * K + (gaps[i + L - 1]! >> 1);
+    // window index over half-gaps: drop the leading digit by subtraction, append the next gap
+    let idx = 0;
+    for (let i = 0; i < L; i++) idx = idx * K + (gaps[i % n]! >> 1);
+    dense[idx]!++;
+    const bulk = Math.max(1, n - (L - 1));
+    for (let i = 1; i < bulk; i++) {
+      idx = (idx - (gaps[i - 1]! >> 1) * mod) * K + (gaps[i + L - 1]! >> 1);
       dense[idx]!++;
     }
     for (let i = bulk; i < n; i++) {
-      idx = (idx % mod) * K + (gaps[(i + L - 1) % n]! >> 1);
+      idx = (idx - (gaps[i - 1]! >> 1) * mod) * K + (gaps[(i + L - 1) % n]! >> 1);
       dense[idx]!++;
     }
     patterns.set(L, patternsFromDense(dense, L, K));
