@@ -5,7 +5,7 @@ import type { INestApplication } from '@nestjs/common';
 import { createServer } from 'node:net';
 import { DataSource } from 'typeorm';
 import { INVITATION_PATH, INVITATION_TTL_DAYS, type InvitationView } from '@cribra/contracts';
-import { InvitationsService } from '../src/invitations/invitations.service';
+import { InvitationsService, MAX_DELIVERY_ATTEMPTS } from '../src/invitations/invitations.service';
 import { mailsTo } from './helpers/mailbox';
 import { deleteNotebooks, expectStatus, linkInMail, sleep } from './helpers/review-fixtures';
 import { Client, createTestApp, newMember, PASSWORD, uniqueEmail } from './helpers/test-app';
@@ -206,6 +206,27 @@ describe('when the SMTP server is down', () => {
     const person = new Client(app);
     expectStatus(await person.call('post', '/api/auth/signup', { email, password: PASSWORD, displayName: 'Patient Person', invitationToken: token }), 201);
     expect((await person.call('get', `/api/notebooks/${notebookId}`)).body.myRole).toBe('viewer');
+  });
+
+  it('gives up after the last attempt (delivery failed) until the owner resends', async () => {
+    const down = await createTestApp({ smtpPort: await closedPort() });
+    const email = uniqueEmail('givenup');
+    let id = '';
+    try {
+      const res = await owner.on(down).call('post', `/api/notebooks/${notebookId}/invitations`, { email, role: 'viewer' });
+      expectStatus(res, 201);
+      id = res.body.id;
+      await db.query(`UPDATE invitations SET delivery_attempts = $2 - 1, next_attempt_at = now() WHERE id = $1`, [id, MAX_DELIVERY_ATTEMPTS]);
+      await down.get(InvitationsService).retryDue();
+    } finally {
+      await down.close();
+    }
+    const failed: InvitationView = (await owner.call('get', `/api/notebooks/${notebookId}/invitations`)).body.find((i: InvitationView) => i.id === id);
+    expect(failed).toMatchObject({ status: 'pending', delivery: 'failed', deliveryAttempts: MAX_DELIVERY_ATTEMPTS, nextAttemptAt: null });
+    const resent = await owner.call('post', `/api/invitations/${id}/resend`);
+    expectStatus(resent, 200);
+    expect(resent.body).toMatchObject({ delivery: 'sent', deliveryAttempts: 1 });
+    expect(tokenOf(await linkInMail(email, linkPrefix()))).toMatch(/^[A-Za-z0-9_-]{43}$/);
   });
 });
 
