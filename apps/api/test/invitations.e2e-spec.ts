@@ -172,7 +172,7 @@ describe('when the SMTP server is down', () => {
     const down = await createTestApp({ smtpPort: await closedPort() });
     const ownerOnDown = owner.on(down);
     const email = uniqueEmail('smtpdown');
-    let inv: InvitationView;
+    let inv!: InvitationView;
     try {
       const res = await ownerOnDown.call('post', `/api/notebooks/${notebookId}/invitations`, { email, role: 'viewer' });
       expectStatus(res, 201);
