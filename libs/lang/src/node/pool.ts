@@ -77,7 +77,10 @@ export class SiftPool {
     if (options.signal?.aborted) onAbort();
     options.signal?.addEventListener('abort', onAbort);
     try {
-      return (await this.piscina.run(task, { transferList: [channel.port2 as never], signal: stop.signal })) as RunResult;
+      const result = (await this.piscina.run(task, { transferList: [channel.port2 as never], signal: stop.signal })) as RunResult;
+      // Worker progress travels on its own port and may trail the result: close with a final report.
+      if (result.ok) options.onProgress?.(1, 'done');
+      return result;
     } catch (e) {
       return failed(classify(e, stop.signal.reason, limits), Date.now() - started);
     } finally {

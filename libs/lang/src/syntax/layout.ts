@@ -17,6 +17,8 @@ const CONTINUES_BEFORE = new Set<TokenType>([
   T.Else, T.As, T.Digits, T.Dot,
 ]);
 const OPENERS = new Set<TokenType>([T.LParen, T.LBracket, T.LBrace]);
+/** A line starting with one of these always starts a new statement (recovery from open brackets). */
+const STATEMENT_STARTS = new Set<TokenType>([T.Let, T.Claim, T.Show, T.Draw]);
 const CLOSERS = new Set<TokenType>([T.RParen, T.RBracket, T.RBrace]);
 
 /**
@@ -29,15 +31,27 @@ export function splitStatements(tokens: IToken[]): { statements: IToken[][]; err
   const errors: SiftError[] = [];
   let current: IToken[] = [];
   let depth = 0;
+  const open: IToken[] = [];
   let tooDeep = false;
   for (let i = 0; i < tokens.length; i++) {
     const tok = tokens[i]!;
     const type = tok.tokenType;
     if (type === T.Newline) {
+      const next = tokens[i + 1];
+      const fresh = tok.image === '\n' && next !== undefined && STATEMENT_STARTS.has(next.tokenType);
+      if (depth > 0 && fresh) {
+        // let/claim/show/draw cannot continue an expression: the bracket was left open.
+        const opener = open[open.length - 1]!;
+        errors.push(syntaxError(`'${opener.image}' is never closed`, spanOfToken(opener)));
+        depth = 0;
+        open.length = 0;
+        if (current.length > 0) statements.push(current);
+        current = [];
+        continue;
+      }
       if (depth > 0) continue;
       const prev = current[current.length - 1];
-      const next = tokens[i + 1];
-      const explicit = tok.image === ';';
+      const explicit = tok.image === ';' || fresh;
       if (!explicit && prev && CONTINUES_AFTER.has(prev.tokenType)) continue;
       if (!explicit && prev && next && CONTINUES_BEFORE.has(next.tokenType)) continue;
       if (current.length > 0) statements.push(current);
@@ -46,6 +60,7 @@ export function splitStatements(tokens: IToken[]): { statements: IToken[][]; err
     }
     if (OPENERS.has(type)) {
       depth++;
+      open.push(tok);
       if (depth > MAX_NESTING && !tooDeep) {
         tooDeep = true;
         errors.push(limitError(`brackets nest deeper than ${MAX_NESTING} levels`, spanOfToken(tok)));
@@ -56,6 +71,7 @@ export function splitStatements(tokens: IToken[]): { statements: IToken[][]; err
         continue;
       }
       depth--;
+      open.pop();
     }
     current.push(tok);
   }
