@@ -4,7 +4,7 @@ import { Worker } from 'node:worker_threads';
 import { EngineError, inputError, type EngineErrorKind } from '../errors';
 import { combineWheelChunks, planWheelChunks, type WheelChunkSpec, type WheelChunkTally } from '../wheel/chunk';
 import { MAX_MEMORY_LEVEL, wheelGaps } from '../wheel/level-gaps';
-import { gapHistogram, levelQuadTally } from '../wheel/level';
+import { gapHistogram, levelQuadTally, levelStatsFromTally, wheelLevelStats, type WheelLevelStats } from '../wheel/level';
 import { nextPairTally } from '../wheel/pair-recursion';
 import { checkLevel, previousPrime } from '../wheel/primorial';
 import { nextHistogram } from '../wheel/recursion';
@@ -116,4 +116,19 @@ export async function gapHistogramParallel(p: number, options: WheelPoolOptions 
   const prev = await gapHistogramParallel(P, options);
   const quads = await levelQuadTallyParallel(previousPrime(P), options);
   return nextHistogram(prev, pairSums(nextPairTally(quads, P)), p);
+}
+
+/**
+ * Full statistics of level p ≤ 29 (as {@link wheelLevelStats}) with the 29# stream shared between
+ * worker threads: histogram, largest gap, first positions and pattern tallies of lengths 2 … 4.
+ * @throws EngineError(input) for a bad level or length; EngineError(limit) when p > 29.
+ */
+export async function wheelLevelStatsParallel(p: number, patternLengths: readonly number[] = [2, 3, 4], options: WheelPoolOptions = {}): Promise<WheelLevelStats> {
+  checkLevel(p, 29);
+  if (p <= MAX_MEMORY_LEVEL) return wheelLevelStats(p, patternLengths);
+  for (const L of patternLengths) if (!(L >= 2 && L <= 4 && Number.isInteger(L))) throw inputError(`pattern length ${L} is not in 2 … 4`);
+  const L = Math.max(1, ...patternLengths) as 1 | 2 | 3 | 4;
+  const radix = histogramMaxGap(gapHistogram(p)) / 2 + 1;
+  const t = await streamLevelParallel(p, L, { ...options, radix, firstPositions: true });
+  return levelStatsFromTally(p, t, patternLengths);
 }

@@ -1,4 +1,4 @@
-import { limitError } from '../errors';
+import { inputError, limitError } from '../errors';
 import { combineWheelChunks, planWheelChunks, runWheelChunk, type WheelChunkTally } from './chunk';
 import { MAX_MEMORY_LEVEL, wheelGaps } from './level-gaps';
 import { checkLevel, previousPrime, primorial, primorialTotient } from './primorial';
@@ -148,11 +148,29 @@ export function wheelLevelStats(p: number, patternLengths: readonly number[] = [
     const s = scanGapCycle(wheelGaps(p), patternLengths);
     return { prime: p, modulus: primorial(p), members: primorialTotient(p), ...s };
   }
-  const L = Math.max(1, ...patternLengths) as 1 | 2 | 3 | 4;
-  const t = streamLevel(p, L, 4e9, undefined, true);
+  const L = Math.max(1, ...checkLengths(patternLengths)) as 1 | 2 | 3 | 4;
+  return levelStatsFromTally(p, streamLevel(p, L, 4e9, undefined, true), patternLengths);
+}
+
+function checkLengths(lengths: readonly number[]): readonly number[] {
+  for (const L of lengths) if (!(L >= 2 && L <= 4 && Number.isInteger(L))) throw inputError(`pattern length ${L} is not in 2 … 4`);
+  return lengths;
+}
+
+/**
+ * Level statistics from the combined tallies of a whole period (all chunks of a streamed level,
+ * streamed with first positions and patterns of the longest requested length).
+ * @throws EngineError(input) for a length outside 2 … 4 or longer than the tally's patterns.
+ */
+export function levelStatsFromTally(p: number, t: WheelChunkTally, patternLengths: readonly number[]): WheelLevelStats {
+  checkLengths(patternLengths);
   const all = shorterPatterns(t);
   const patterns = new Map<number, PatternTally>();
-  for (const len of patternLengths) patterns.set(len, all.get(len)!);
+  for (const len of patternLengths) {
+    const tally = all.get(len);
+    if (!tally) throw inputError(`the tally holds patterns of length ${t.patternLength}, not ${len}`);
+    patterns.set(len, tally);
+  }
   const firstPosition = new Map<number, number>();
   for (let h = 0; h < t.radix; h++) if (t.firstPosition[h]! >= 0) firstPosition.set(2 * h, t.firstPosition[h]!);
   const histogram = histogramFromDense(t.histogram);
