@@ -7,14 +7,18 @@ import { gapcountCommand } from './gapcount';
 import { maxgapsCommand } from './maxgaps';
 import { narrowestCommand } from './narrowest';
 import { occurrencesCommand } from './occurrences';
-import { runCommand } from './run';
 import { wheelCommand } from './wheel';
 
 const siftRunCommand: Command = {
   name: 'run',
   summary: 'run a notebook file headlessly (query and claim cells); exit 1 when a claim fails',
   usage: 'cribra run FILE [--json] [--workers N] [--timeout SECONDS] [--upload NAME=FILE]…',
-  run: (argv, io) => runCommand([...argv], io.out, io.err),
+  // Loaded on demand: the language and its worker pool take most of a second to load.
+  run: async (argv, io) => {
+    // eslint-disable-next-line @typescript-eslint/no-require-imports -- deliberate lazy CommonJS load
+    const { runCommand } = require('./run') as typeof import('./run');
+    return runCommand([...argv], io.out, io.err);
+  },
 };
 
 export const COMMANDS: readonly Command[] = [
