@@ -3,10 +3,11 @@ import { EngineError } from '../errors';
 import { minimalDiameter, tupleOfDiameter } from './minimal-diameter';
 import { narrowAdmissibility } from './narrow-admissibility';
 
-// H(k) for k = 1..30: OEIS A008407 (offset 2; a(1) = 0 stated in its comments).
+// H(k) for k = 1..56: OEIS A008407 (offset 2; a(1) = 0 stated in its comments).
 const A008407 = [
   0, 2, 6, 8, 12, 16, 20, 26, 30, 32, 36, 42, 48, 50, 56, 60, 66, 70, 76, 80, 84, 90, 94, 100, 110, 114, 120, 126,
-  130, 136,
+  130, 136, 140, 146, 152, 156, 158, 162, 168, 176, 182, 186, 188, 196, 200, 210, 212, 216, 226, 236, 240, 246, 252,
+  254, 264, 270, 272, 278,
 ];
 
 /** Brute force, an independent path: DFS over even offsets 0 < h ≤ d, admissibility checked at the end. */
