@@ -130,7 +130,7 @@ const core: Builtin[] = [
   {
     name: 'factor', area: 'numbers', minArgs: 1, maxArgs: 1,
     signature: 'factor(n) → table (prime, exponent)', doc: 'Prime factorisation of n ≥ 1 (trial division, n ≤ 10^18).',
-    example: { source: 'factor(360)', result: 'prime 2, 3, 5 with exponent 3, 2, 1' },
+    example: { source: 'factor(360)', result: 'table (prime, exponent): (2, 3), (3, 2), (5, 1)' },
     call: (a, c) => {
       const n = argInt(a, 0, c, 'factor');
       if (n < 1n) throw domainError('factor: n must be ≥ 1', c.span);
@@ -361,7 +361,7 @@ const core: Builtin[] = [
   {
     name: 'table', area: 'collections', minArgs: 1, maxArgs: 1,
     signature: 'table(rows) → table', doc: 'A table from a series of records with the same fields (table[…](…) is the bound form).',
-    example: { source: 'table([(p: 2, q: 3), (p: 5, q: 7)])', result: 'a table with columns p, q' },
+    example: { source: 'table([(p: 2, q: 3), (p: 5, q: 7)])', result: 'table (p, q): (2, 3), (5, 7)' },
     call: (a, c) => {
       const rows = argSeries(a, 0, c, 'table');
       if (rows.length === 0) return new Table([], []);
@@ -379,7 +379,7 @@ const core: Builtin[] = [
   {
     name: 'text', area: 'collections', minArgs: 1, maxArgs: 1,
     signature: 'text(x) → string', doc: 'The exact text of a value (for labels and notes).',
-    example: { source: 'text(7#)', result: '"210"' },
+    example: { source: 'text(7#)', result: '210' },
     call: (a) => formatValue(a[0]!),
   },
 ];

@@ -42,14 +42,14 @@ const counts: Builtin[] = [
     name: 'patterncount', area: 'counts', minArgs: 2, maxArgs: 2,
     signature: 'patterncount(g or [g1, g2, …], p) → integer',
     doc: 'Exact number of runs of consecutive gaps equal to the pattern in one period of level p, by inclusion–exclusion (any level p ≤ 10^6).',
-    example: { source: 'patterncount(6, 29)', result: '(the number of gaps 6 in level 29)' },
+    example: { source: 'patterncount(6, 29)', result: '280323050' },
     call: (a, c) => patternCount(patternArg(a, 0, c, 'patterncount'), levelArg(a, 1, c, 'patterncount')),
   },
   {
     name: 'closedform', area: 'counts', minArgs: 1, maxArgs: 2,
     signature: 'closedform(g or [g1, …]) → record (pattern, formula, from, validfrom, terms, range)  |  closedform(g, p) → integer',
     doc: 'The count of a consecutive gap (pattern) as Σ c·∏_{from ≤ q ≤ p}(q − s); with a level p, its value there.',
-    example: { source: 'closedform(6).formula', result: '"2·∏(q−2) − 2·∏(q−3)"' },
+    example: { source: 'closedform(6).formula', result: '2·∏(q−2) − 2·∏(q−3)' },
     call: (a, c) => {
       const form = patternClosedForm(patternArg(a, 0, c, 'closedform'));
       if (a.length === 1) return formRecord(form);
@@ -60,7 +60,7 @@ const counts: Builtin[] = [
     name: 'basisfit', area: 'fit', minArgs: 2, maxArgs: 3,
     signature: 'basisfit(T, shifts[, from]) → record (formula, coefficients, integral, fitted, holds, firstfailure, range)',
     doc: 'Fits the values (second column of T) at the levels (first column) exactly to Σ c_s·∏_{from ≤ q ≤ p}(q − s); the first |shifts| levels fix c, the rest are checked.',
-    example: { source: 'basisfit(table[p ∈ primes 5..23](level: p, n: gapcount(6, p)), [2, 3], 5).formula', result: '"2·∏(q−2) − 2·∏(q−3)"' },
+    example: { source: 'basisfit(table[p ∈ primes 5..23](level: p, n: gapcount(6, p)), [2, 3], 5).formula', result: '2·∏(q−2) − 2·∏(q−3)' },
     call: (a, c) => {
       const t = argTable(a, 0, c, 'basisfit');
       if (t.columns.length < 2) throw typeError('basisfit: the table needs a level column and a value column', c.argSpans[0]);

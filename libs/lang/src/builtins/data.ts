@@ -21,7 +21,7 @@ const data: Builtin[] = [
     name: 'upload', area: 'data', minArgs: 1, maxArgs: 1,
     signature: 'upload(name) → tuple or table',
     doc: "A file uploaded to the notebook: a tuple file (one integer per line) as a tuple, a CSV file as a table (numbers exact, other cells text).",
-    example: { source: 'size(upload("quintuplets"))', result: '(the number of offsets in the upload)' },
+    example: { source: 'size(upload("quintuplets"))', result: '5' },
     call: (a, c) => {
       const name = argString(a, 0, c, 'upload');
       const u = c.data?.upload(name) ?? null;

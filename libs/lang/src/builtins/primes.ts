@@ -87,7 +87,7 @@ const primes: Builtin[] = [
     name: 'records', area: 'primes', minArgs: 1, maxArgs: 1,
     signature: 'records(a..b) → table (gap, after)',
     doc: 'Record gaps between consecutive primes of a..b (each larger than every earlier one; from 2 on, the maximal prime gaps).',
-    example: { source: 'records(1..1000)', result: 'gap 1, 2, 4, 6, 8, 14, 18, 20 after 2, 3, 7, 23, 89, 113, 523, 887' },
+    example: { source: 'records(1..1000)', result: 'table (gap, after): (1, 2), (2, 3), (4, 7), (6, 23), (8, 89), (14, 113), (18, 523), (20, 887)' },
     call: (a, c) => {
       const b = sieveRange(argRange(a, 0, c, 'records'), { gaps: true, patterns: [] }, c, 'records');
       return new Table(['gap', 'after'], b.gaps!.records.map((g) => [BigInt(g.gap), g.after]));
@@ -97,7 +97,7 @@ const primes: Builtin[] = [
     name: 'primegaps', area: 'primes', minArgs: 1, maxArgs: 1,
     signature: 'primegaps(a..b) → table (gap, count)',
     doc: 'Histogram of the gaps between consecutive primes that both lie in a..b.',
-    example: { source: 'primegaps(1..30)', result: 'gap 1, 2, 4, 6 with count 1, 4, 3, 1' },
+    example: { source: 'primegaps(1..30)', result: 'table (gap, count): (1, 1), (2, 4), (4, 3), (6, 1)' },
     call: (a, c) => {
       const b = sieveRange(argRange(a, 0, c, 'primegaps'), { gaps: true, patterns: [] }, c, 'primegaps');
       return new Table(['gap', 'count'], [...b.gaps!.histogram].sort((x, y) => x[0] - y[0]).map(([g, n]) => [BigInt(g), BigInt(n)]));

@@ -34,7 +34,7 @@ const tuples: Builtin[] = [
     name: 'witness', area: 'tuples', minArgs: 1, maxArgs: 1,
     signature: 'witness(H) → table (prime, residue)',
     doc: 'For an admissible H: for each prime q ≤ k the least residue mod q that H (shifted to start at 0) misses.',
-    example: { source: 'witness({0, 2, 6})', result: 'prime 2, 3 with residue 1, 1' },
+    example: { source: 'witness({0, 2, 6})', result: 'table (prime, residue): (2, 1), (3, 1)' },
     call: (a, c) => {
       const v = admissibility(argTuple(a, 0, c, 'witness'));
       if (!v.admissible) throw domainError(`witness: the tuple is not admissible (it covers every class mod ${v.obstruction.prime})`, c.span);

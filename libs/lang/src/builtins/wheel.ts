@@ -78,7 +78,7 @@ const wheel: Builtin[] = [
     name: 'gaps', area: 'wheel', minArgs: 1, maxArgs: 1,
     signature: 'gaps(p) → table (gap, count)',
     doc: 'Gap histogram of level p over one period (stored levels are read, levels ≤ 31 computed).',
-    example: { source: 'gaps(5)', result: 'gap 2, 4, 6 with count 3, 3, 2' },
+    example: { source: 'gaps(5)', result: 'table (gap, count): (2, 3), (4, 3), (6, 2)' },
     call: (a, c) => histogramTable(levelHistogram(c, levelArg(a, 0, c, 'gaps'), 'gaps')),
   },
   {
@@ -97,7 +97,7 @@ const wheel: Builtin[] = [
     name: 'firstpositions', area: 'wheel', minArgs: 1, maxArgs: 1,
     signature: 'firstpositions(p) → table (gap, first)',
     doc: 'For each gap of level p (p ≤ 29) the least member m in [1, p#] followed by the gap m → m + g.',
-    example: { source: 'firstpositions(5)', result: 'gap 2, 4, 6 with first 11, 7, 1' },
+    example: { source: 'firstpositions(5)', result: 'table (gap, first): (2, 11), (4, 7), (6, 1)' },
     call: (a, c) => {
       const p = levelArg(a, 0, c, 'firstpositions');
       if (p > MAX_STATS_LEVEL) throw limitError(`firstpositions: levels above ${MAX_STATS_LEVEL} are not scanned member by member`, c.span);
@@ -110,7 +110,7 @@ const wheel: Builtin[] = [
     name: 'tally', area: 'wheel', minArgs: 2, maxArgs: 2,
     signature: 'tally(p, L) → table (pattern, count)  |  tally(p, [g1, g2, …]) → integer',
     doc: 'Tallies of runs of L consecutive gaps (L = 2, 3, 4) over one period of level p; with a pattern, the count of that run.',
-    example: { source: 'tally(7, [2, 4])', result: '(the number of runs 2, 4 in level 7)' },
+    example: { source: 'tally(7, [2, 4])', result: '8' },
     call: (a, c) => {
       const p = levelArg(a, 0, c, 'tally');
       const want = a[1];
