@@ -13,7 +13,7 @@ export const RUNNER_MAIN = join(ROOT, 'apps/runner/dist/main.js');
 
 /** Short queue timings for tests: a dead runner's job comes back within a few seconds. */
 export const TEST_QUEUE_ENV = {
-  CRIBRA_JOB_EXPIRE_SECONDS: '3',
+  CRIBRA_JOB_EXPIRE_SECONDS: '5',
   CRIBRA_QUEUE_MAINTENANCE_SECONDS: '1',
   CRIBRA_RUNNER_POLL_MS: '100',
   CRIBRA_RUNNER_HEARTBEAT_MS: '500',
@@ -89,7 +89,9 @@ export class QueueStack {
   async stop(): Promise<void> {
     await Promise.all(this.runners.map((r) => this.stopRunner(r, 'SIGTERM')));
     await this.app?.close();
-    await this.admin.query(`DROP DATABASE IF EXISTS ${this.name} WITH (FORCE)`).catch(() => undefined);
+    // Without FORCE: a connection some component still holds keeps the database (in the throwaway
+    // test cluster) instead of being killed under it, which would surface as an unhandled error.
+    await this.admin.query(`DROP DATABASE IF EXISTS ${this.name}`).catch(() => undefined);
     await this.admin.end();
     for (const [k, v] of Object.entries(this.savedEnv)) {
       if (v === undefined) delete process.env[k];
