@@ -26,7 +26,7 @@ export function AppFrame({ nav, userLabel, onSignOut, signingOut, children }: Pr
       >
         Skip to content
       </Link>
-      <AppBar position="sticky">
+      <AppBar position="static">
         <Toolbar variant="dense" sx={{ gap: 3 }}>
           <Typography
             component={RouterLink}

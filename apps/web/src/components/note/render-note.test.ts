@@ -15,6 +15,12 @@ describe('renderNote', () => {
     expect(html).toContain('<math');
   });
 
+  it('renders $$ … $$ inside a line as display maths', () => {
+    const html = renderNote('The count follows $$2\\prod_{5 \\le q \\le p}(q-2)$$ here.');
+    expect(html).toContain('katex-display');
+    expect(html).not.toContain('$');
+  });
+
   it('does not take a price for maths', () => {
     expect(renderNote('costs $5 and $6')).not.toContain('katex');
   });

@@ -27,11 +27,14 @@ const inlineMath: TokenizerAndRendererExtension = {
     return i < 0 ? undefined : i;
   },
   tokenizer(src) {
+    // `$$ … $$` inside a line of text: display maths in place.
+    const d = /^\$\$([^$]+?)\$\$/.exec(src);
+    if (d) return { type: 'inlineMath', raw: d[0], text: d[1], display: true };
     const m = /^\$(?![\s$])((?:\\\$|[^$\n])+?)(?<!\s)\$(?!\d)/.exec(src);
-    if (m) return { type: 'inlineMath', raw: m[0], text: m[1] };
+    if (m) return { type: 'inlineMath', raw: m[0], text: m[1], display: false };
     return undefined;
   },
-  renderer: (token) => tex(token.text as string, false),
+  renderer: (token) => tex(token.text as string, token.display === true),
 };
 
 const marked = new Marked({ gfm: true, breaks: false, extensions: [blockMath, inlineMath] });

@@ -4,13 +4,13 @@ import { useMemo } from 'react';
 import { monoFont } from '../../lib/design-tokens';
 import type { TableOutput, ValueJson } from '../../lib/sift-output';
 import { compareValues, valueText } from '../../lib/value-text';
-import { OutputLabel } from './output-label';
 
 type Row = { id: number } & Record<string, ValueJson | number>;
 
 const NUMERIC = new Set(['int', 'rat', 'real']);
 // Small tables render every row (browser find and printing see them all); large ones virtualise.
 const RENDER_ALL_UP_TO = 200;
+const AUTO_HEIGHT_UP_TO = 15;
 
 /** A Sift table in the data grid: exact values, bigint-aware sorting, filter, CSV download of exact text. */
 export function TableOutputView({ output, fileName }: { output: TableOutput; fileName?: string }) {
@@ -37,8 +37,8 @@ export function TableOutputView({ output, fileName }: { output: TableOutput; fil
 
   return (
     <Box>
-      <OutputLabel>{output.label}</OutputLabel>
-      <Box sx={{ height: Math.min(420, 110 + rows.length * 32), minHeight: 180 }}>
+      {/* Short tables take the height they need; long ones scroll inside a fixed frame. */}
+      <Box sx={rows.length > AUTO_HEIGHT_UP_TO ? { height: 480 } : undefined}>
         <DataGrid
           rows={rows}
           columns={columns}
@@ -46,7 +46,9 @@ export function TableOutputView({ output, fileName }: { output: TableOutput; fil
           showToolbar
           disableRowSelectionOnClick
           disableVirtualization={rows.length <= RENDER_ALL_UP_TO}
+          autoHeight={rows.length <= AUTO_HEIGHT_UP_TO}
           pageSizeOptions={[25, 100]}
+          hideFooter={rows.length <= 25}
           initialState={{ pagination: { paginationModel: { pageSize: 100 } } }}
           slotProps={{ toolbar: { csvOptions: { fileName: fileName ?? output.label ?? 'cribra-table' }, printOptions: { disableToolbarButton: true } } }}
           label={output.label ?? 'Table'}

@@ -33,7 +33,7 @@ export function VerdictCard({ output }: { output: VerdictOutput }) {
           <Typography color="text.secondary">{counterexampleText(output.counterexample)}</Typography>
         </Box>
       )}
-      {output.holds && (
+      {output.holds && !/not a proof/i.test(output.summary) && (
         <Typography variant="body2" color="text.secondary" sx={{ mt: 1, fontStyle: 'italic' }}>
           Computed evidence on the range above only; it is not a proof of the claim beyond it.
         </Typography>

@@ -20,6 +20,8 @@ export interface SiftEditorProps {
   readOnly?: boolean;
   /** Accessible name of the editing area. */
   label: string;
+  /** Change it to replace the editor's text with `value` (otherwise `value` is only the initial text). */
+  replaceKey?: number;
   /** A model path unique to the cell, so each cell keeps its own undo history. */
   path: string;
   language?: string;
@@ -28,11 +30,18 @@ export interface SiftEditorProps {
 const LINE_HEIGHT = 19;
 
 /** Monaco with the Sift mode; grows with its content (3 to 30 lines). Loaded lazily. */
-export default function SiftEditor({ value, onChange, onRun, onSave, onAddBelow, readOnly, label, path, language = SIFT_LANGUAGE_ID }: SiftEditorProps) {
+export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave, onAddBelow, readOnly, label, path, language = SIFT_LANGUAGE_ID }: SiftEditorProps) {
   // Latest callbacks for the commands registered once at mount.
   const handlers = useRef({ onRun, onSave, onAddBelow });
   handlers.current = { onRun, onSave, onAddBelow };
   const editorRef = useRef<Parameters<OnMount>[0] | null>(null);
+  // The editor owns its text while typing (a controlled value lags keystrokes and would undo them);
+  // the parent replaces the text (taking the saved version) by changing `replaceKey`.
+  useEffect(() => {
+    const editor = editorRef.current;
+    if (editor && replaceKey !== undefined && editor.getValue() !== value) editor.setValue(value);
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- only a new replaceKey pushes the value in
+  }, [replaceKey]);
   const lines = Math.min(30, Math.max(3, value.split('\n').length + 1));
 
   const onMount: OnMount = (editor) => {
@@ -60,7 +69,7 @@ export default function SiftEditor({ value, onChange, onRun, onSave, onAddBelow,
         language={language}
         path={path}
         theme={SIFT_THEME}
-        value={value}
+        defaultValue={value}
         onChange={(v) => onChange(v ?? '')}
         onMount={onMount}
         loading={null}

@@ -70,6 +70,7 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
       ) : (
         <LazySiftEditor
           value={d.draft}
+          replaceKey={d.replaceKey}
           onChange={d.setDraft}
           onRun={doRun}
           onSave={() => void d.save()}

@@ -12,14 +12,21 @@ export function useCellDraft(cell: CellView) {
   const qc = useQueryClient();
   const [draft, setDraft] = useState(cell.source);
   const [conflict, setConflict] = useState<CellView | null>(null);
+  // Bumped whenever the text is replaced from outside the editor (saved version taken, remote change).
+  const [replaceKey, setReplaceKey] = useState(0);
   const update = useUpdateCell();
   const dirty = draft !== cell.source;
   const lastServerSource = useRef(cell.source);
+  const draftRef = useRef(draft);
+  draftRef.current = draft;
 
   // Someone else's saved change replaces the text only while there is nothing unsaved here.
   useEffect(() => {
     if (cell.source !== lastServerSource.current) {
-      setDraft((d) => (d === lastServerSource.current ? cell.source : d));
+      if (draftRef.current === lastServerSource.current) {
+        setDraft(cell.source);
+        setReplaceKey((k) => k + 1);
+      }
       lastServerSource.current = cell.source;
     }
   }, [cell.source]);
@@ -41,6 +48,7 @@ export function useCellDraft(cell: CellView) {
   return {
     draft,
     setDraft,
+    replaceKey,
     dirty,
     saving: update.isPending,
     saveError: update.error && !staleCell(update.error) ? update.error : null,
@@ -53,6 +61,7 @@ export function useCellDraft(cell: CellView) {
       putCachedCell(qc, conflict);
       lastServerSource.current = conflict.source;
       setDraft(conflict.source);
+      setReplaceKey((k) => k + 1);
       setConflict(null);
     },
     dismissConflict: () => setConflict(null),
