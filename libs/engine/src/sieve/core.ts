@@ -9,6 +9,9 @@ const L1_BYTES = 1 << 14;
 /** Primes below this bound have several hits per L1 piece and are sieved piece by piece. */
 const SMALL_PRIME_BOUND = 1 << 13;
 
+/** Sieving primes from this bound on go to the bucket sieve (fewer than one hit per class per segment). */
+const LARGE_PRIME_BOUND = 1 << 19;
+
 /** Bytes per sieve segment (each byte spans 30 integers); sized for the L2 cache. */
 export const SEGMENT_BYTES = 1 << 19;
 
@@ -68,9 +71,10 @@ let scratchU32 = new Uint32Array(0);
 
 /**
  * Segmented sieve of Eratosthenes on the mod-30 wheel over [a, b] (safe integers, 0 ≤ a ≤ b,
- * b < 2^53): one byte per 30 integers, segments of SEGMENT_BYTES, the multiples of 7…19 removed by
- * copying a pre-sieved pattern, those of 23 … 43 by AND-ing word patterns, then every sieving prime 47 ≤ p ≤ √b crossed off per wheel residue
- * class (eight progressions of step p bytes, unrolled). `sieving` must hold every prime ≤ √b in
+ * b < 2^53): one byte per 30 integers, segments of SEGMENT_BYTES; the multiples of 7 … 19 removed by
+ * copying a pre-sieved pattern, those of 23 … 43 by AND-ing word patterns; every sieving prime
+ * 47 ≤ p < LARGE_PRIME_BOUND crossed off per wheel residue class (eight progressions of step p
+ * bytes, unrolled), the larger ones by a bucket sieve. `sieving` must hold every prime ≤ √b in
  * increasing order (more are ignored). Counts primes, the given patterns (n ≥ a, n + max H ≤ b) and,
  * when asked, the gap histogram and the record gaps.
  */
@@ -143,15 +147,19 @@ export function sieveCore(
   const u32 = scratchU32;
   const pattern = presievePattern(SEGMENT_BYTES + extra + 8);
 
-  // Sieving primes from 23 up: next byte of each of the 8 residue-class progressions, and its mask.
+  // Sieving primes from 47 up: next byte of each of the 8 residue-class progressions, and its mask.
   let firstSieving = 0;
   while (firstSieving < sieving.length && sieving[firstSieving]! <= LAST_PATTERN_PRIME) firstSieving++;
   let lastSieving = firstSieving;
   while (lastSieving < sieving.length && sieving[lastSieving]! * sieving[lastSieving]! <= b) lastSieving++;
   const nSieving = lastSieving - firstSieving;
-  if (scratchNext.length < 8 * nSieving) {
-    scratchNext = new Int32Array(8 * nSieving);
-    scratchMasks = new Uint8Array(8 * nSieving);
+  // Primes from LARGE_PRIME_BOUND on hit a segment less than once per residue class: bucket sieve.
+  let nMedium = 0;
+  while (nMedium < nSieving && sieving[firstSieving + nMedium]! < LARGE_PRIME_BOUND) nMedium++;
+  const large = nMedium < nSieving ? new LargePrimes(sieving, firstSieving + nMedium, lastSieving, totalBytes) : null;
+  if (scratchNext.length < 8 * nMedium) {
+    scratchNext = new Int32Array(8 * nMedium);
+    scratchMasks = new Uint8Array(8 * nMedium);
   }
   const next = scratchNext;
   const masks = scratchMasks;
@@ -174,7 +182,7 @@ export function sieveCore(
     }
 
     // Activate the primes whose square falls before the end of this segment.
-    active = activate(sieving, firstSieving, nSieving, active, base, base + 30 * L, next, masks);
+    active = activate(sieving, firstSieving, nMedium, active, base, base + 30 * L, next, masks);
     // Primes with many hits per segment are crossed off one L1-sized piece at a time.
     while (small < active && sieving[firstSieving + small]! < SMALL_PRIME_BOUND) small++;
     for (let piece = L1_BYTES; piece < len; piece += L1_BYTES) crossRange(buf, next, masks, sieving, firstSieving, 0, small, piece, 0);
@@ -182,6 +190,7 @@ export function sieveCore(
     crossRange(buf, next, masks, sieving, firstSieving, small, active, len, 0);
     if (L > len) crossLookahead(buf, next, masks, sieving, firstSieving, active, len, L);
     for (let i = 0, n = active << 3; i < n; i++) next[i] -= len;
+    if (large) large.crossSegment(buf, base0, done, len, L);
     clearOutside(buf, base, L, a, b);
 
     // Primes of this segment: start bytes [0, len).
@@ -334,6 +343,121 @@ function activate(
     active++;
   }
   return active;
+}
+
+// The wheel of cofactors m coprime to 30: from m ≡ RESIDUES[w] the next one is DELTA[w] further.
+const DELTA = new Int32Array([6, 4, 2, 4, 2, 4, 6, 2]);
+// For p ≡ s (mod 30) and p = 30q + s: the byte of p·m advances by q·DELTA[w] + BYTE_CARRY[8s + w].
+const BYTE_CARRY = new Int32Array(240);
+for (let s = 0; s < 30; s++) {
+  for (let w = 0; w < 8; w++) {
+    const r = RESIDUES[w]!;
+    BYTE_CARRY[8 * s + w] = Math.floor((s * (r + DELTA[w]!)) / 30) - Math.floor((s * r) / 30);
+  }
+}
+// For r in 0..29: the least t ≥ 0 with r + t coprime to 30, and the wheel index of r + t.
+const TO_WHEEL_STEP = new Int32Array(30);
+const TO_WHEEL_INDEX = new Int32Array(30);
+for (let r = 0; r < 30; r++) {
+  let t = 0;
+  while (RESIDUE_BIT[(r + t) % 30]! < 0) t++;
+  TO_WHEEL_STEP[r] = t;
+  TO_WHEEL_INDEX[r] = RESIDUE_BIT[(r + t) % 30]!;
+}
+
+/**
+ * Bucket sieve for the large sieving primes: each waits in the bucket of the segment of its next
+ * multiple as two small integers, its index and (byte offset in that segment)·8 + (wheel index of
+ * its cofactor); a segment only touches the primes that hit it.
+ */
+class LargePrimes {
+  private readonly buckets: number[][];
+  private activated: number;
+
+  constructor(
+    private readonly sieving: Uint32Array,
+    from: number,
+    private readonly to: number,
+    private readonly totalBytes: number,
+  ) {
+    const maxStep = Math.floor(sieving[to - 1]! / 5) + 2; // q·6 + carry ≤ p/5 + 2 bytes
+    this.buckets = Array.from({ length: Math.floor(maxStep / SEGMENT_BYTES) + 2 }, () => []);
+    this.activated = from;
+  }
+
+  /** Crosses off the large primes' multiples in the segment starting at block byte `start`. */
+  crossSegment(buf: Uint8Array, base0: number, start: number, len: number, L: number): void {
+    const segment = start / SEGMENT_BYTES;
+    const base = base0 + 30 * start;
+    const end = base + 30 * L;
+    const sieving = this.sieving;
+    const ring = this.buckets.length;
+    // Start the primes whose square lies before the end of this segment.
+    while (this.activated < this.to) {
+      const p = sieving[this.activated]!;
+      if (p * p >= end) break;
+      const first = p * p > base ? p * p : base;
+      let q = Math.floor(first / p);
+      let rem = first - q * p;
+      if (rem < 0) {
+        q--;
+        rem += p;
+      } else if (rem >= p) {
+        q++;
+        rem -= p;
+      }
+      let m = rem === 0 ? q : q + 1;
+      const r = m - 30 * Math.floor(m / 30);
+      m += TO_WHEEL_STEP[r]!;
+      const w = TO_WHEEL_INDEX[r]!;
+      const j = (p * m - base - PRODUCT_RESIDUE[8 * (p % 30) + w]!) / 30;
+      if (start + j < this.totalBytes) {
+        const d = Math.floor(j / SEGMENT_BYTES);
+        this.buckets[(segment + d) % ring]!.push(this.activated, ((j - d * SEGMENT_BYTES) << 3) | w);
+      }
+      this.activated++;
+    }
+    const current = this.buckets[segment % ring]!;
+    const last = start + len >= this.totalBytes;
+    for (let t = 0; t < current.length; t += 2) {
+      const i = current[t]!;
+      const packed = current[t + 1]!;
+      let j = packed >>> 3;
+      let w = packed & 7;
+      const p = sieving[i]!;
+      const s = p % 30;
+      const s8 = s << 3;
+      const q = (p - s) / 30;
+      while (j < len) {
+        buf[j]! &= PRODUCT_MASK[s8 + w]!;
+        j += q * DELTA[w]! + BYTE_CARRY[s8 + w]!;
+        w = (w + 1) & 7;
+      }
+      if (last) continue; // past the block
+      const d = (j / SEGMENT_BYTES) | 0;
+      this.buckets[(segment + d) % ring]!.push(i, ((j - d * SEGMENT_BYTES) << 3) | w);
+    }
+    current.length = 0;
+    if (L > len && !last) {
+      // Look-ahead bytes [len, L): the hits of the primes waiting for the next segment (len = SEGMENT_BYTES).
+      const following = this.buckets[(segment + 1) % ring]!;
+      for (let t = 0; t < following.length; t += 2) {
+        const i = following[t]!;
+        const packed = following[t + 1]!;
+        let j = (packed >>> 3) + len;
+        let w = packed & 7;
+        const p = sieving[i]!;
+        const s = p % 30;
+        const s8 = s << 3;
+        const q = (p - s) / 30;
+        while (j < L) {
+          buf[j]! &= PRODUCT_MASK[s8 + w]!;
+          j += q * DELTA[w]! + BYTE_CARRY[s8 + w]!;
+          w = (w + 1) & 7;
+        }
+      }
+    }
+  }
 }
 
 /** Crosses off the look-ahead bytes [len, L) (they are sieved again as part of the next segment). */

@@ -123,6 +123,15 @@ describe('combination and JSON', () => {
       /different options/,
     );
   });
+  it('carries the bucket-sieved large primes across segments as fresh starts do (near 10^12)', () => {
+    // One pass over 4·10^7 integers (three segments; primes above 2^19 go through the buckets)
+    // against 9 separately sieved pieces, each starting its progressions afresh.
+    const from = 10n ** 12n - 12_345n;
+    const to = from + 40_000_000n;
+    const options = { gaps: true, patterns: [[0, 2], [0, 4, 6, 10, 12, 16]] };
+    const pieces = splitSieveRange(from, to, 9).map((r) => sievePrimeBlock(r.from, r.to, options));
+    expect(primeBlockToJson(combinePrimeBlockList(pieces))).toEqual(primeBlockToJson(sievePrimeBlock(from, to, options)));
+  });
   it('splits a range into adjacent parts that cover it', () => {
     const parts = splitSieveRange(17, 1_000_003, 7);
     expect(parts[0]!.from).toBe(17n);
