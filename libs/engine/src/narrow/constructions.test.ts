@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { EngineError } from '../errors';
 import { admissibility } from '../tuple';
 import { greedyGreedySieve } from './greedy-greedy';
 import { hensleyRichardsTuple } from './hensley-richards';
@@ -79,6 +80,13 @@ describe('constructions for large k', () => {
     expect(r.diameter).toBeLessThan(20);
     expect(r.diameter).toBeGreaterThanOrEqual(12);
     expect(narrowAdmissibility(r.tuple).admissible).toBe(true);
+  });
+
+  it('refuses work above the limits with EngineError', () => {
+    expect(() => sieveInterval({ from: 0, to: 3_000_000, fixedBound: 3 })).toThrow(/above the limit/);
+    expect(() => narrowTuple(50_001)).toThrow(EngineError);
+    expect(() => hensleyRichardsTuple(0)).toThrow(EngineError);
+    expect(() => sieveInterval({ from: 5, to: 4 })).toThrow(EngineError);
   });
 
   it('narrowTuple is exact up to k = 100', () => {

@@ -1,4 +1,5 @@
 import { inputError } from '../errors';
+import { CONSTRUCT_MAX_K } from './limits';
 import { primesUpTo } from '../primes';
 import { narrowAdmissibility } from './narrow-admissibility';
 import { narrowResult } from './narrow-result';
@@ -23,9 +24,11 @@ const CENSUS_EVERY = TIGHT - 1;
  * diameter; the size k is unchanged. An insertion x is legal iff x mod q differs from the single
  * empty class of every prime q ≤ k that has exactly one; primes with few empty classes keep full
  * class counts, the others are re-counted every few insertions.
- * @throws EngineError(input) when the tuple is not admissible or has repeated elements.
+ * @throws EngineError(input) when the tuple is not admissible, has repeated elements or more than
+ *   CONSTRUCT_MAX_K elements.
  */
 export function improveTuple(tuple: readonly number[], options: ImproveOptions = {}): NarrowTuple {
+  if (tuple.length > CONSTRUCT_MAX_K) throw inputError(`improveTuple: ${tuple.length} elements, at most ${CONSTRUCT_MAX_K}`);
   const check = narrowAdmissibility(tuple);
   if (!check.admissible) throw inputError(`tuple is not admissible (all classes modulo ${check.prime} covered)`);
   const k = tuple.length;

@@ -27,6 +27,9 @@ export interface IntervalSieveResult {
   readonly lastPrime: number;
 }
 
+/** Most survivors the greedy phase accepts (its work is about survivors × π(survivors)). */
+export const GREEDY_MAX_SURVIVORS = 150_000;
+
 /** Largest interval length accepted by {@link sieveInterval}. */
 export const SIEVE_MAX_LENGTH = 200_000_000;
 
@@ -38,7 +41,8 @@ export const SIEVE_MAX_LENGTH = 200_000_000;
  * survivors are admissible (a set of m integers cannot cover all classes of a prime q > m).
  * With fixedBound > 0 this is the "greedy-greedy" sieve of the Polymath8 narrow-tuple records.
  * Residues are taken in [0, q) for negative integers too (−1 ≡ q − 1).
- * @throws EngineError(input) for a bad interval, EngineError(limit) above SIEVE_MAX_LENGTH.
+ * @throws EngineError(input) for a bad interval, EngineError(limit) above SIEVE_MAX_LENGTH or when the
+ *   greedy phase would start with more than GREEDY_MAX_SURVIVORS survivors.
  */
 export function sieveInterval(options: IntervalSieveOptions): IntervalSieveResult {
   const { from, to } = options;
@@ -71,6 +75,11 @@ export function sieveInterval(options: IntervalSieveOptions): IntervalSieveResul
 
   // Greedy phase over the survivors list.
   let lastPrime = fixedPrimes.length ? fixedPrimes[fixedPrimes.length - 1] : 2;
+  if (count > GREEDY_MAX_SURVIVORS && greedyUpTo > lastPrime) {
+    throw limitError(
+      `greedy sieving of ${count} survivors (one pass per prime up to that count) is above the limit of ${GREEDY_MAX_SURVIVORS}; use a shorter interval or a larger fixed bound`,
+    );
+  }
   const greedyPrimes = primesUpTo(Math.max(3, Math.min(count, length)));
   let occ = new Int32Array(0);
   for (const q of greedyPrimes) {

@@ -6,12 +6,12 @@ import { EXACT_MAX_K, minimalDiameter } from './minimal-diameter';
 import { NARROW_MAX_K } from './narrow-admissibility';
 import { schinzelSieveTuple } from './schinzel-sieve';
 import type { NarrowTuple } from './types';
+import { CONSTRUCT_MAX_K } from './limits';
 
 /** Result of {@link narrowTuple}: `exact` is true when the diameter is H(k) itself. */
 export type NarrowTupleResult = NarrowTuple & { readonly exact: boolean };
 
-/** Largest k for which {@link narrowTuple} runs the constructions (time grows like k²/log k). */
-export const CONSTRUCT_MAX_K = 200_000;
+export { CONSTRUCT_MAX_K } from './limits';
 
 /**
  * The narrowest admissible k-tuple Cribra can produce: for k ≤ EXACT_MAX_K the exact H(k) by

@@ -1,4 +1,5 @@
 import { inputError } from '../errors';
+import { CONSTRUCT_MAX_K } from './limits';
 import { sieveInterval } from './interval-sieve';
 import { narrowestWindow } from './narrowest-window';
 import { narrowResult } from './narrow-result';
@@ -9,10 +10,12 @@ import type { NarrowTuple } from './types';
  * survivors (±2^j·m, m free of primes ≤ k) are admissible by construction. X doubles until at
  * least k survive, then the narrowest window of k survivors is kept (so the result may sit off
  * centre, as in the shifted variant).
- * @throws EngineError(input) unless 1 ≤ k ≤ 10^6.
+ * @throws EngineError(input) unless 1 ≤ k ≤ CONSTRUCT_MAX_K (50 000).
  */
 export function schinzelSieveTuple(k: number): NarrowTuple {
-  if (!Number.isSafeInteger(k) || k < 1 || k > 1_000_000) throw inputError(`k must be an integer in [1, 10^6], got ${k}`);
+  if (!Number.isSafeInteger(k) || k < 1 || k > CONSTRUCT_MAX_K) {
+    throw inputError(`k must be an integer from 1 to ${CONSTRUCT_MAX_K}, got ${k}`);
+  }
   if (k <= 2) return narrowResult(k === 1 ? [0] : [0, 2], 'schinzel');
   let x = Math.ceil(k * Math.log(k + 1));
   for (;;) {
