@@ -1,4 +1,4 @@
-import { EmbeddedActionsParser, type IToken, type TokenType } from 'chevrotain';
+import { EmbeddedActionsParser, type IToken, tokenMatcher, type TokenType } from 'chevrotain';
 import type { SourceSpan } from '../errors';
 import { Rational } from '../values/rational';
 import type { ArithOp, BigOp, Binder, ChartKind, CompareOp, Expr, Stmt } from './ast';
@@ -398,7 +398,7 @@ class SiftParser extends EmbeddedActionsParser {
           return this.ACTION((): Expr => ({ t: 'name', name: tok.image, span: spanOf(tok) }));
         },
       },
-      { GATE: () => this.LA(2).tokenType === T.Identifier && this.LA(3).tokenType === T.Colon, ALT: () => this.SUBRULE(this.recordLit) },
+      { GATE: () => tokenMatcher(this.LA(2), T.Name) && this.LA(3).tokenType === T.Colon, ALT: () => this.SUBRULE(this.recordLit) },
       {
         ALT: () => {
           this.CONSUME(T.LParen);
