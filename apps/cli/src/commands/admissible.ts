@@ -5,6 +5,9 @@ import { groupDigits, toJson } from '../format';
 import { parseFlags } from '../options';
 import { tupleFromFlags } from '../tuple-input';
 
+// The readable form lists the witness for the first primes only.
+const SHOW_CLASSES = 12;
+
 export const admissibleCommand: Command = {
   name: 'admissible',
   summary: 'is a tuple admissible? witness residues or the covering prime',
@@ -17,8 +20,9 @@ export const admissibleCommand: Command = {
       if (flags.json) io.out(toJson({ k: v.k, diameter: v.diameter, admissible: true, witness: v.witness }));
       else {
         const w = Object.entries(v.witness).map(([q, r]) => `${r} mod ${q}`);
+        const shown = w.length > SHOW_CLASSES ? `${w.slice(0, SHOW_CLASSES).join(', ')}, … (${groupDigits(w.length)} primes; --json prints all)` : w.join(', ');
         io.out(`admissible ${groupDigits(v.k)}-tuple, diameter ${groupDigits(v.diameter)}\n`);
-        io.out(`uncovered classes: ${w.length ? w.join(', ') : 'none needed (k = 1)'}\n`);
+        io.out(`uncovered classes: ${w.length ? shown : 'none needed (k = 1)'}\n`);
       }
     } else if (flags.json) {
       io.out(toJson({ k: v.k, diameter: v.diameter, admissible: false, obstruction: v.obstruction }));
