@@ -4,6 +4,7 @@ import { admissibility } from '../tuple';
 import { greedyGreedySieve } from './greedy-greedy';
 import { hensleyRichardsTuple } from './hensley-richards';
 import { improveTuple } from './improve-tuple';
+import { minimalDiameter } from './minimal-diameter';
 import { sieveInterval } from './interval-sieve';
 import { narrowAdmissibility } from './narrow-admissibility';
 import { narrowTuple } from './narrow-tuple';
@@ -80,6 +81,18 @@ describe('constructions for large k', () => {
     expect(r.diameter).toBeLessThan(20);
     expect(r.diameter).toBeGreaterThanOrEqual(12);
     expect(narrowAdmissibility(r.tuple).admissible).toBe(true);
+  });
+
+  it('no construction beats the exact H(k) (k = 20 … 60, two code paths)', () => {
+    for (const k of [20, 33, 47, 60]) {
+      const h = minimalDiameter(k).diameter;
+      expect(hensleyRichardsTuple(k).diameter).toBeGreaterThanOrEqual(h);
+      expect(schinzelSieveTuple(k).diameter).toBeGreaterThanOrEqual(h);
+      const greedy = greedyGreedySieve({ from: 0, to: 6 * h, fixedBound: 0, k });
+      expect(greedy.method).toBe('greedy');
+      expect(greedy.diameter).toBeGreaterThanOrEqual(h);
+      expect(improveTuple(greedy.tuple).diameter).toBeGreaterThanOrEqual(h);
+    }
   });
 
   it('refuses work above the limits with EngineError', () => {
