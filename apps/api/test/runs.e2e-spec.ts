@@ -55,8 +55,8 @@ describe('runs', () => {
     it('executes end to end: runner → outputs and canonical digest stored, progress streamed as server-sent events', async () => {
       const cell = await addCell(owner, notebookId, 'primorial(13)\ntotient(30030)');
       // Listen to the notebook's event stream on a real port.
-      const server = await stack.app.listen(0, '127.0.0.1');
-      const port = (server.address() as AddressInfo).port;
+      if (!stack.app.getHttpServer().listening) await stack.app.listen(0, '127.0.0.1');
+      const port = (stack.app.getHttpServer().address() as AddressInfo).port;
       const events: string[] = [];
       const cookie = [...owner.client.jar].map(([k, v]) => `${k}=${v}`).join('; ');
       const sse = http.get({ host: '127.0.0.1', port, path: `/api/notebooks/${notebookId}/events`, headers: { cookie, accept: 'text/event-stream' } });
@@ -85,6 +85,37 @@ describe('runs', () => {
 
       const cellView = (await viewer.client.call('get', `/api/cells/${cell.id}`)).body;
       expect(cellView.latestRun).toMatchObject({ id: queued.id, status: 'succeeded' });
+    });
+
+    it('streams the events of one run, and refuses streams of unknown runs (404) and outsiders (403)', async () => {
+      if (!stack.app.getHttpServer().listening) await stack.app.listen(0, '127.0.0.1');
+      const address = stack.app.getHttpServer().address() as AddressInfo;
+      const open = (who: Person, path: string) =>
+        new Promise<{ res: http.IncomingMessage; req: http.ClientRequest }>((resolve) => {
+          const cookie = [...who.client.jar].map(([k, v]) => `${k}=${v}`).join('; ');
+          const req = http.get({ host: '127.0.0.1', port: address.port, path, headers: { cookie, accept: 'text/event-stream' } });
+          req.on('response', (res) => resolve({ res, req }));
+        });
+      const cell = await addCell(owner, notebookId, 'primorial(19)');
+      const other = await addCell(owner, notebookId, 'primorial(23)');
+      const queued = (await owner.client.call('post', `/api/cells/${cell.id}/runs`)).body as RunView;
+      const { res, req } = await open(viewer, `/api/runs/${queued.id}/events`);
+      expect(res.statusCode).toBe(200);
+      let text = '';
+      res.on('data', (b: Buffer) => (text += b.toString()));
+      const otherRun = (await owner.client.call('post', `/api/cells/${other.id}/runs`)).body as RunView;
+      await finished(queued.id);
+      await finished(otherRun.id);
+      await waitFor('the run event', async () => (text.includes('"status":"succeeded"') ? true : undefined), 5000);
+      expect(text).toContain(`"id":"${queued.id}"`);
+      expect(text).not.toContain(otherRun.id); // only this run's events
+      req.destroy();
+      const unknown = await open(owner, `/api/runs/${NO_SUCH_ID}/events`);
+      expect(unknown.res.statusCode).toBe(404);
+      unknown.req.destroy();
+      const outside = await open(outsider, `/api/notebooks/${notebookId}/events`);
+      expect(outside.res.statusCode).toBe(403);
+      outside.req.destroy();
     });
 
     it('records a failing cell with the error and its line', async () => {

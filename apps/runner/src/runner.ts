@@ -12,6 +12,9 @@ import { ensureQueues } from './queue/job-options';
 import type { RunnerConfig } from './runner-config';
 import type { SiftExecutor } from './sift/sift-executor';
 
+/** SQLSTATE raised by the database trigger that freezes locked notebooks (review feature). */
+const LOCKED_NOTEBOOK = 'CRLCK';
+
 /** Queues in the order a free slot looks at them: people waiting on a cell come first. */
 const HANDLERS: Array<[QueueName, JobHandler<never>]> = [
   [QUEUES.runCell, runCell as JobHandler<never>],
@@ -109,6 +112,12 @@ export class Runner {
       await this.heartbeat.jobDone().catch(() => undefined);
     } catch (err) {
       const message = err instanceof Error ? err.message : String(err);
+      if ((err as { code?: string }).code === LOCKED_NOTEBOOK) {
+        // The notebook was locked meanwhile: its rows are frozen, so the result cannot be stored. Retrying would not help.
+        this.log(`${queue} job ${job.id}: ${message}; result discarded`);
+        await this.boss.complete(queue, job.id).catch(() => undefined);
+        return;
+      }
       this.log(`${queue} job ${job.id} failed (attempt ${job.retryCount + 1} of ${job.retryLimit + 1}): ${message}`);
       await this.boss.fail(queue, job.id, { message }).catch(() => undefined);
       if (job.retryCount >= job.retryLimit) await this.giveUp(queue, job, message).catch(() => undefined);
