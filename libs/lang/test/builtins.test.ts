@@ -124,6 +124,10 @@ const cases: Record<string, () => void> = {
     expect(value('patterncount(6, 1009)')).toBe(gapCount(6, 1009).toString());
     expect(value('patterncount([2, 4], 13)')).toBe(value('tally(13, [2, 4])'));
   },
+  gapsbycounts: () => {
+    // Two code paths: inclusion–exclusion counts against the enumerated histogram.
+    expect(table('gapsbycounts(19)')).toEqual(table('gaps(19)'));
+  },
   closedform: () => {
     expect(value('closedform(6).formula')).toBe('2·∏(q−2) − 2·∏(q−3)'); // OEIS A271564
     expect(value('closedform([2, 4]).formula')).toBe(patternClosedForm([2, 4]).text);

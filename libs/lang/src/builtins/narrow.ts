@@ -59,7 +59,7 @@ const narrow: Builtin[] = [
   {
     name: 'greedygreedy', area: 'narrow', minArgs: 2, maxArgs: 3,
     signature: 'greedygreedy(a..b, bound[, k]) → record (k, diameter, tuple, method, origin, witness)',
-    doc: 'Sieve the interval a..b by 1 mod 2 and 0 mod q for odd q ≤ bound, then greedily by the least occupied class; the survivors (or the narrowest k of them) are admissible.',
+    doc: 'Sieve the interval a..b by 1 mod 2 and 0 mod q for odd q ≤ bound (bound 0: plain greedy), then greedily by the least occupied class; the survivors (or the narrowest k of them) are admissible.',
     example: { source: 'greedygreedy(-185662..202456, 137).k', result: '34429' },
     call: (a, c) => {
       const r = argRange(a, 0, c, 'greedygreedy');
