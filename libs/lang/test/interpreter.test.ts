@@ -125,6 +125,12 @@ describe('claims', () => {
     expect(v.counterexample).toEqual({ binding: [['n', { t: 'int', v: '40' }]], relation: '=', lhs: { t: 'bool', v: false }, rhs: { t: 'bool', v: true } });
   });
 
+  it('says which condition failed and keeps the quantifier text as written', () => {
+    const v = verdict('claim "over the top": isprime(n^2 + n + 41) over n ∈ 0..100, n ≠ 7');
+    expect(v).toMatchObject({ label: 'over the top', over: 'n ∈ 0..100, n ≠ 7', checked: 40, skipped: 1 });
+    expect(v.summary).toBe('fails at n = 40: the condition is false');
+  });
+
   it('counts cases left out by conditions', () => {
     const v = verdict('claim admissible({0, h}) over h ∈ 1..20, h mod 2 = 0');
     expect(v).toMatchObject({ holds: true, checked: 10, skipped: 10 });

@@ -167,7 +167,7 @@ export class Interpreter {
     };
     if (stmt.binders.length === 0) check(scope);
     else this.iterate(stmt.binders, scope, stmt.span, check, () => skipped++, true);
-    const over = stmt.binders.length ? stmt.text.slice(stmt.text.search(/\bover\b/) + 4).trim() : null;
+    const over = stmt.binders.length ? stmt.text.slice(stmt.binders[0]!.span.offset - stmt.span.offset).trim() : null;
     const holds = counterexample === null;
     const cx = counterexample as VerdictOutput['counterexample'];
     const where = (b: Binding) => b.map(([n, v]) => `${n} = ${jsonText(v)}`).join(', ');
@@ -175,7 +175,7 @@ export class Interpreter {
       ? over
         ? `holds in all ${checked} cases checked (${over}${skipped ? `; ${skipped} left out by the conditions` : ''}); computed evidence over this range, not a proof`
         : 'holds (checked once)'
-      : `fails${cx!.binding.length ? ` at ${where(cx!.binding)}` : ''}: ${jsonText(cx!.lhs)}${cx!.relation ? ` ${cx!.relation} ${jsonText(cx!.rhs!)} is false` : ' is false'}`;
+      : `fails${cx!.binding.length ? ` at ${where(cx!.binding)}` : ''}: ${cx!.relation ? `${jsonText(cx!.lhs)} ${cx!.relation} ${jsonText(cx!.rhs!)} is false` : 'the condition is false'}`;
     return { kind: 'verdict', label: stmt.label, statement: stmt.text, holds, over, checked, skipped, first, last, counterexample: cx, summary };
   }
 
