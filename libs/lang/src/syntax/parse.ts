@@ -10,6 +10,11 @@ import * as T from './tokens';
 export const MAX_SOURCE_LENGTH = 200_000;
 /** Unary operators may stack this deep (`- - - x`, `not not p`). */
 const MAX_PREFIX_RUN = 64;
+/**
+ * Digits a number literal may stand for: `1e10000000` is ten characters but would take seconds of
+ * CPU to expand while parsing, before any run limit applies (also in the editor's diagnostics).
+ */
+export const MAX_LITERAL_DIGITS = 100_000;
 
 export interface ParseResult {
   /** The statements that parsed; statements with errors are left out. */
@@ -43,7 +48,7 @@ export function parse(source: string): ParseResult {
   const statements: Stmt[] = [];
   const parser = siftParser();
   for (const tokens of split.statements) {
-    const deep = prefixRun(tokens);
+    const deep = prefixRun(tokens) ?? hugeLiteral(tokens);
     if (deep) {
       errors.push(deep);
       continue;
@@ -80,6 +85,17 @@ function prefixRun(tokens: IToken[]): SiftError | null {
     if (t.tokenType === T.Minus || t.tokenType === T.Not || t.tokenType === T.Caret) {
       if (++run > MAX_PREFIX_RUN) return limitError(`more than ${MAX_PREFIX_RUN} operators in a row`, spanOfToken(t));
     } else run = 0;
+  }
+  return null;
+}
+
+function hugeLiteral(tokens: IToken[]): SiftError | null {
+  for (const t of tokens) {
+    if (t.tokenType !== T.NumberLit) continue;
+    const m = /^([\d_]+)(?:\.[\d_]+)?[eE]\+?(\d+)$/.exec(t.image);
+    if (m && m[1]!.replace(/_/g, '').length + Number(m[2]) > MAX_LITERAL_DIGITS) {
+      return limitError(`the literal ${t.image.length > 30 ? `${t.image.slice(0, 30)}…` : t.image} would have more than ${MAX_LITERAL_DIGITS} digits`, spanOfToken(t));
+    }
   }
   return null;
 }
