@@ -66,7 +66,7 @@ describe('cribra run', () => {
     const r = await cli([tutorial, '--json', '--workers', '2']);
     const j = JSON.parse(r.out);
     expect(j.errors).toBe(0);
-    expect(j.claims).toEqual({ holds: 1, fails: 1 });
+    expect(j.claims).toEqual({ holds: 2, fails: 1 });
     expect(r.code).toBe(1);
   });
 });
