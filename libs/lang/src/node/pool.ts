@@ -18,6 +18,8 @@ export interface SiftPoolOptions {
   limits?: Partial<Limits>;
   /** Milliseconds an idle worker stays alive (default 30 s). */
   idleTimeoutMs?: number;
+  /** Workers started at once and kept warm (default 0: started on demand; a cold start loads the parser, about a second). */
+  minThreads?: number;
 }
 
 export interface PoolRunOptions {
@@ -47,7 +49,7 @@ export class SiftPool {
     const threads = Math.max(1, options.threads ?? availableParallelism());
     this.piscina = new Piscina({
       filename: workerFile(),
-      minThreads: 0,
+      minThreads: Math.min(threads, Math.max(0, options.minThreads ?? 0)),
       maxThreads: threads,
       idleTimeout: options.idleTimeoutMs ?? 30_000,
       resourceLimits: { maxOldGenerationSizeMb: heap, maxYoungGenerationSizeMb: Math.min(64, Math.max(8, heap / 8)), stackSizeMb: 8 },
