@@ -55,7 +55,8 @@ export async function requireFreePorts(ports) {
     if (!(await portFree(port))) {
       throw new LaunchError(
         `Port ${port} on 127.0.0.1 (${what}) is already in use. Stop the program using it ` +
-          `(for example another Cribra still running: \`ss -ltnp | grep ${port}\` shows which) and try again.`,
+          `(for example another Cribra still running: \`ss -ltnp | grep ${port}\` shows which) and try again` +
+          ` — or give \`npm start\` other ports with CRIBRA_PORT_BASE=4330 (uses 4330–4333).`,
       );
     }
   }

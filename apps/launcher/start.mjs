@@ -2,10 +2,12 @@
 import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
-import { ROOT, LaunchError, bold, ensureDependencies, step, warn } from './common.mjs';
+import { ROOT, LaunchError, bold, ensureDependencies, requireFreePorts, step, warn } from './common.mjs';
 import { bringUp, build, watchServices } from './stack.mjs';
 
-const PORTS = { api: 4310, pg: 4311, smtp: 4312, mailWeb: 4313 };
+// CRIBRA_PORT_BASE moves all four ports (e.g. 4330 → 4330–4333) when another copy already runs.
+const BASE = Number(process.env.CRIBRA_PORT_BASE ?? 4310);
+const PORTS = { api: BASE, pg: BASE + 1, smtp: BASE + 2, mailWeb: BASE + 3 };
 const DATA = join(ROOT, '.data');
 const t0 = Date.now();
 
@@ -38,6 +40,13 @@ function banner(env) {
 }
 
 async function main() {
+  if (!Number.isInteger(BASE) || BASE < 1024 || BASE > 65000) throw new LaunchError(`CRIBRA_PORT_BASE must be a port number between 1024 and 65000, got "${process.env.CRIBRA_PORT_BASE}".`);
+  // Fail fast, before installing and building, when another program holds our ports.
+  await requireFreePorts([
+    [PORTS.api, 'Cribra API and web'],
+    [PORTS.smtp, 'SMTP fake'],
+    [PORTS.mailWeb, 'SMTP fake inbox page'],
+  ]);
   mkdirSync(DATA, { recursive: true });
   ensureDependencies();
   build();

@@ -4,7 +4,7 @@ import { randomBytes } from 'node:crypto';
 import { chmodSync, existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
-import { LaunchError, aptInstall, bold, ensureDependencies, step, warn } from './common.mjs';
+import { LaunchError, aptInstall, bold, ensureDependencies, requireFreePorts, step, warn } from './common.mjs';
 import { bringUp, build } from './stack.mjs';
 import { SUITES, runSuite } from './suites.mjs';
 
@@ -58,8 +58,16 @@ async function main() {
   const baseEnv = { ...process.env, CRIBRA_ENV: 'test' };
   let env = baseEnv;
   try {
-    ensureDependencies();
     const needStack = suites.some((s) => s.stack);
+    if (needStack) {
+      await requireFreePorts([
+        [PORTS.api, 'test API'],
+        [PORTS.pg, 'test PostgreSQL'],
+        [PORTS.smtp, 'test SMTP fake'],
+        [PORTS.mailWeb, 'test SMTP fake inbox'],
+      ]);
+    }
+    ensureDependencies();
     if (needStack) {
       build();
       stack = await bringUp({
