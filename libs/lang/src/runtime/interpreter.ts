@@ -69,7 +69,8 @@ export class Interpreter {
 
   tick(span: SourceSpan, n = 1): void {
     this.steps += n;
-    if (this.steps >= this.nextCheck) {
+    // Big ticks come from builtins between blocks of engine work: look at the clock each time.
+    if (this.steps >= this.nextCheck || n >= 1000) {
       this.nextCheck = this.steps + CHECK_EVERY;
       const { maxSteps, maxMillis } = this.opts.limits;
       if (this.steps > maxSteps) throw limitError(`the step limit (${maxSteps} steps) was reached`, span);
