@@ -39,3 +39,25 @@ export function wordPattern(primes: readonly number[]): WordPattern {
 export function wordIndex(pattern: WordPattern, byteIndex: number): number {
   return ((byteIndex % pattern.period) * pattern.inverse4) % pattern.period;
 }
+
+// Primes 23 … 43 are removed by AND-ing word patterns (cheaper than crossing them off).
+const WORD_PATTERNS: readonly WordPattern[] = [wordPattern([23, 29, 31]), wordPattern([37, 41, 43])];
+/** The largest prime removed by a pattern (crossing off starts after it). */
+export const LAST_PATTERN_PRIME = 43;
+/** The primes the byte and word patterns remove together with their multiples (to be put back). */
+export const PATTERN_PRIMES: readonly number[] = [7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43];
+/** Sieve bytes holding PATTERN_PRIMES (they are below 60). */
+export const PATTERN_PRIMES_BYTES = 2;
+
+/** ANDs the word patterns into the first `words` words of a segment starting at sieve byte K0. */
+export function applyWordPatterns(u32: Uint32Array, words: number, K0: number): void {
+  const [A, B] = WORD_PATTERNS as [WordPattern, WordPattern];
+  const wa = A.words, pa = A.period, wb = B.words, pb = B.period;
+  let ta = wordIndex(A, K0);
+  let tb = wordIndex(B, K0);
+  for (let w = 0; w < words; w++) {
+    u32[w]! &= wa[ta]! & wb[tb]!;
+    if (++ta === pa) ta = 0;
+    if (++tb === pb) tb = 0;
+  }
+}

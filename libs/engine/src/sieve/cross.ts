@@ -1,0 +1,111 @@
+// Crossing off the multiples of the sieving primes below LARGE_PRIME_BOUND: eight progressions each.
+import { CLASS_STEP, PRODUCT_MASK, PRODUCT_RESIDUE } from './wheel30';
+
+/**
+ * Crosses off, for the sieving primes i0 ≤ i < i1, every multiple whose byte lies before `end`;
+ * each progression is left at its first byte ≥ end, minus `shift` (the segment length when the
+ * segment is finished, so that positions become relative to the next segment).
+ */
+export function crossRange(
+  buf: Uint8Array,
+  next: Int32Array,
+  masks: Uint8Array,
+  sieving: Uint32Array,
+  first: number,
+  i0: number,
+  i1: number,
+  end: number,
+  shift: number,
+): void {
+  for (let i = i0; i < i1; i++) {
+    const p = sieving[first + i]!;
+    const o = i << 3;
+    let j0 = next[o]!, j1 = next[o + 1]!, j2 = next[o + 2]!, j3 = next[o + 3]!;
+    let j4 = next[o + 4]!, j5 = next[o + 5]!, j6 = next[o + 6]!, j7 = next[o + 7]!;
+    const m0 = masks[o]!, m1 = masks[o + 1]!, m2 = masks[o + 2]!, m3 = masks[o + 3]!;
+    const m4 = masks[o + 4]!, m5 = masks[o + 5]!, m6 = masks[o + 6]!, m7 = masks[o + 7]!;
+    // The eight progressions stay within p bytes of each other: step them together.
+    let jmax = Math.max(j0, j1, j2, j3, j4, j5, j6, j7);
+    while (jmax < end) {
+      buf[j0] &= m0; buf[j1] &= m1; buf[j2] &= m2; buf[j3] &= m3;
+      buf[j4] &= m4; buf[j5] &= m5; buf[j6] &= m6; buf[j7] &= m7;
+      j0 += p; j1 += p; j2 += p; j3 += p; j4 += p; j5 += p; j6 += p; j7 += p;
+      jmax += p;
+    }
+    while (j0 < end) { buf[j0] &= m0; j0 += p; }
+    while (j1 < end) { buf[j1] &= m1; j1 += p; }
+    while (j2 < end) { buf[j2] &= m2; j2 += p; }
+    while (j3 < end) { buf[j3] &= m3; j3 += p; }
+    while (j4 < end) { buf[j4] &= m4; j4 += p; }
+    while (j5 < end) { buf[j5] &= m5; j5 += p; }
+    while (j6 < end) { buf[j6] &= m6; j6 += p; }
+    while (j7 < end) { buf[j7] &= m7; j7 += p; }
+    next[o] = j0 - shift; next[o + 1] = j1 - shift; next[o + 2] = j2 - shift; next[o + 3] = j3 - shift;
+    next[o + 4] = j4 - shift; next[o + 5] = j5 - shift; next[o + 6] = j6 - shift; next[o + 7] = j7 - shift;
+  }
+}
+
+/**
+ * Starts the progressions of the sieving primes from index `active` on whose square lies below
+ * `end`: for each residue class c, the byte (relative to `base`) of the least multiple p·m ≥
+ * max(p², base) with m ≡ RESIDUES[c] (mod 30). Returns the new number of active primes.
+ */
+export function activate(
+  sieving: Uint32Array,
+  first: number,
+  count: number,
+  active: number,
+  base: number,
+  end: number,
+  next: Int32Array,
+  masks: Uint8Array,
+): number {
+  while (active < count) {
+    const p = sieving[first + active]!;
+    if (p * p >= end) break;
+    const start = p * p > base ? p * p : base;
+    // m0 = ⌈start / p⌉ without a floating-point remainder (the quotient is corrected to be exact).
+    let q = Math.floor(start / p);
+    let rem = start - q * p;
+    if (rem < 0) {
+      q--;
+      rem += p;
+    } else if (rem >= p) {
+      q++;
+      rem -= p;
+    }
+    const m0 = rem === 0 ? q : q + 1;
+    const d = (m0 - 30 * Math.floor(m0 / 30)) << 3;
+    const pr = (p % 30) << 3;
+    const o = active << 3;
+    const rel = p * m0 - base; // small: the multiples are near base
+    for (let c = 0; c < 8; c++) {
+      const n = rel + p * CLASS_STEP[d + c]!;
+      next[o + c] = (n - PRODUCT_RESIDUE[pr + c]!) / 30; // base ≡ 0 (mod 30)
+      masks[o + c] = PRODUCT_MASK[pr + c]!;
+    }
+    active++;
+  }
+  return active;
+}
+
+/** Crosses off the look-ahead bytes [len, L) (they are sieved again as part of the next segment). */
+export function crossLookahead(
+  buf: Uint8Array,
+  next: Int32Array,
+  masks: Uint8Array,
+  sieving: Uint32Array,
+  first: number,
+  active: number,
+  len: number,
+  L: number,
+): void {
+  for (let i = 0; i < active; i++) {
+    const p = sieving[first + i]!;
+    const o = i << 3;
+    for (let c = 0; c < 8; c++) {
+      const m = masks[o + c]!;
+      for (let j = next[o + c]!; j < L; j += p) buf[j] &= m;
+    }
+  }
+}

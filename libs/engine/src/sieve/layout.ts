@@ -1,0 +1,12 @@
+// Sizes of the sieve segments and the prime classes that share their work.
+
+/** Bytes of one piece sieved by the small primes at a time (the L1 data cache). */
+export const L1_BYTES = 1 << 14;
+/** Primes below this bound have several hits per L1 piece and are sieved piece by piece. */
+export const SMALL_PRIME_BOUND = 1 << 13;
+
+/** Sieving primes from this bound on go to the bucket sieve (fewer than one hit per class per segment). */
+export const LARGE_PRIME_BOUND = 1 << 19;
+
+/** Bytes per sieve segment (each byte spans 30 integers); sized for the L2 cache. */
+export const SEGMENT_BYTES = 1 << 19;
