@@ -19,6 +19,12 @@ describe('parallel sieve over worker threads', () => {
   it('counts π(10^8) = 5761455 (OEIS A006880) with the default split', async () => {
     expect((await sievePrimeBlockParallel(0, '1e8', { workers: 2 })).primeCount).toBe(5761455);
   });
+  it('stops the workers when cancelled', async () => {
+    const controller = new AbortController();
+    const run = sievePrimeBlockParallel(0, '1e11', { workers: 2, signal: controller.signal });
+    setTimeout(() => controller.abort(), 200);
+    await expect(run).rejects.toThrow(/cancelled/);
+  });
   it('rejects bad input before starting workers', async () => {
     await expect(sievePrimeBlockParallel(0, 100, { patterns: [[0, 2, 4]] })).rejects.toThrow(EngineError);
     await expect(sievePrimeBlockParallel(0, 100, { workers: 0 })).rejects.toThrow(/worker count 0/);

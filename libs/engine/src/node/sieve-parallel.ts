@@ -24,6 +24,8 @@ export interface ParallelSieveOptions extends SieveOptions {
   readonly blocks?: number;
   /** Called after each finished block with the number done and the total. */
   readonly onProgress?: (done: number, total: number) => void;
+  /** Stops the workers and rejects with EngineError(limit) "sieve cancelled" when aborted. */
+  readonly signal?: AbortSignal;
 }
 
 /** Ranges shorter than this are sieved in the calling thread (starting workers would cost more). */
@@ -45,7 +47,8 @@ export function sieveWorkerFile(): string {
 /**
  * {@link sievePrimeBlock} with the range cut into blocks that worker threads sieve in parallel; the
  * block summaries are combined exactly (same result as one pass).
- * @throws EngineError as {@link sievePrimeBlock}; EngineError(input) for a bad worker or block count.
+ * @throws EngineError as {@link sievePrimeBlock}; EngineError(input) for a bad worker or block count;
+ *   EngineError(limit) when `signal` aborts (the workers are stopped).
  */
 export async function sievePrimeBlockParallel(
   from: RangeEnd,
@@ -70,6 +73,8 @@ export async function sievePrimeBlockParallel(
   if (options.blocks === undefined && BigInt(parts) * MIN_BLOCK > length) parts = Math.max(1, Number(length / MIN_BLOCK));
   const ranges = splitSieveRange(range.from, range.to, parts);
   const results: PrimeBlock[] = new Array(ranges.length);
+  const cancelled = (): EngineError => new EngineError('limit', `sieve of [${range.from}, ${range.to}] cancelled`);
+  if (options.signal?.aborted) throw cancelled();
   const file = sieveWorkerFile();
   const pool = Array.from({ length: Math.min(workers, ranges.length) }, () => new Worker(file));
   let nextTask = 0;
@@ -96,6 +101,7 @@ export async function sievePrimeBlockParallel(
             worker.on('exit', (code) => {
               if (code !== 0) reject(new EngineError('limit', `sieve worker stopped with exit code ${code}`));
             });
+            options.signal?.addEventListener('abort', () => reject(cancelled()), { once: true });
             send();
           }),
       ),
