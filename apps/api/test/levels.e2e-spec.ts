@@ -1,4 +1,4 @@
-import type { ComputationView, LedgerRangeView, WheelLevelSummary, WheelLevelView } from '@cribra/contracts';
+import type { ComputationView, LedgerRangeView, RunnerView, WheelLevelSummary, WheelLevelView } from '@cribra/contracts';
 import { Pool } from 'pg';
 import { PgDataProvider } from '../../runner/src/data/pg-data-provider';
 import { NO_SUCH_ID, person, type Person } from './helpers/notebooks';
@@ -95,6 +95,10 @@ describe('levels, ledger and computations', () => {
     expect(again.body).toMatchObject({ status: 'succeeded', chunksTotal: 2, chunksDone: 2 });
     const kinds = (await me.client.call('get', '/api/computations?kind=ledger')).body as ComputationView[];
     expect(kinds.every((c) => c.kind === 'ledger')).toBe(true);
+    // The runner that did the work shows up with its heartbeat.
+    const runners = (await me.client.call('get', '/api/runners')).body as RunnerView[];
+    expect(runners).toEqual([expect.objectContaining({ id: 'levels-a', alive: true, stoppedAt: null, pid: expect.any(Number) })]);
+    expect(runners[0].jobsDone).toBeGreaterThanOrEqual(4);
   });
 
   it('refuses bad ledger ranges (400) and unknown blocks (404)', async () => {

@@ -35,6 +35,7 @@
  *   POST   /api/ledger/computations       LedgerComputationBody → 202 ComputationView
  *   GET    /api/computations?kind&status                     → ComputationView[]
  *   GET    /api/computations/:id                             → ComputationView
+ *   GET    /api/runners                                      → RunnerView[] (heartbeats of runner processes)
  *   GET    /api/notebooks/:id/uploads                        → UploadView[]
  *   POST   /api/notebooks/:id/uploads   multipart: file, name? → 201 UploadView (400 UploadParseDetails)
  *   GET    /api/uploads/:id                                  → UploadView
@@ -303,6 +304,21 @@ export interface ComputationView {
   createdAt: string;
   finishedAt: string | null;
   error: string | null;
+}
+
+/** A runner process as its heartbeats show it. */
+export interface RunnerView {
+  id: string;
+  host: string;
+  pid: number;
+  startedAt: string;
+  lastSeenAt: string;
+  /** `queue:jobId` of the job it is executing, or null when idle. */
+  currentJob: string | null;
+  jobsDone: number;
+  stoppedAt: string | null;
+  /** Not stopped and seen within the last 30 seconds. */
+  alive: boolean;
 }
 
 // ---------------------------------------------------------------- stored wheel levels
