@@ -10,6 +10,7 @@ import { SessionStoreService } from './auth/session-store.service';
 import { ApiExceptionFilter } from './common/filters/api-exception.filter';
 import { Csrf } from './common/middleware/csrf';
 import { createValidationPipe } from './common/pipes/validation';
+import { StorableInputGuard } from './common/guards/storable-input.guard';
 import { appConfig } from './config/app.config';
 import { UsersService } from './users/users.service';
 import { webStatic } from './web/web-static';
@@ -76,6 +77,7 @@ export function configureApp(app: INestApplication): INestApplication {
     }
   });
   app.use('/api', app.get(Csrf).middleware());
+  app.useGlobalGuards(new StorableInputGuard());
   app.useGlobalPipes(createValidationPipe());
   app.useGlobalFilters(new ApiExceptionFilter());
 
