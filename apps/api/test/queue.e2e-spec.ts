@@ -69,6 +69,36 @@ describe('queue and runners', () => {
     expect(runners[0].stopped_at).toBeNull(); // died without a clean stop
   }, 60_000);
 
+  it('hands its running jobs back at once when a runner is stopped (SIGTERM) before they finish', async () => {
+    await stack.stopRunnersNamed(['kill-b']);
+    const nb = await createNotebook(owner);
+    const cell = await addCell(owner, nb.id, 'primorial(19)');
+    // A long expiry for this job: only the hand-back can make it finish within the test's wait.
+    const saved = process.env.CRIBRA_JOB_EXPIRE_SECONDS;
+    process.env.CRIBRA_JOB_EXPIRE_SECONDS = '120';
+    const a = stack.startRunner('stop-a', { CRIBRA_RUNNER_TEST_PAUSE_MS: '20000', CRIBRA_RUNNER_STOP_GRACE_MS: '300' });
+    const queued = (await owner.client.call('post', `/api/cells/${cell.id}/runs`)).body as RunView;
+    process.env.CRIBRA_JOB_EXPIRE_SECONDS = saved;
+    await waitFor('runner A to take the run', async () => {
+      const [r] = await sql<{ status: string; runner_id: string }>(`SELECT status, runner_id FROM runs WHERE id = $1`, [queued.id]);
+      return r.status === 'running' && r.runner_id === 'stop-a' ? true : undefined;
+    });
+    await stack.stopRunner(a, 'SIGTERM');
+    expect(stack.logs.get('stop-a')).toContain('back to the queue');
+    stack.startRunner('kill-b');
+    const run = await waitFor(
+      'the run to finish on runner B',
+      async () => {
+        const r = (await owner.client.call('get', `/api/runs/${queued.id}`)).body as RunView;
+        return r.status === 'succeeded' || r.status === 'failed' ? r : undefined;
+      },
+      40_000,
+    );
+    expect(run).toMatchObject({ status: 'succeeded', runnerId: 'kill-b', attempts: 2 });
+    const [a2] = await sql<{ stopped_at: Date | null }>(`SELECT stopped_at FROM runners WHERE id = 'stop-a'`);
+    expect(a2.stopped_at).not.toBeNull();
+  }, 60_000);
+
   it('computes a ledger range in blocks shared by two runners, equal to one single-process sieve', async () => {
     stack.startRunner('share-c');
     await waitFor('both runners', async () => {

@@ -36,6 +36,8 @@ export class Runner {
   private readonly heartbeat: Heartbeat;
   private readonly ctx: JobContext;
   private active = 0;
+  /** Jobs being executed, so that a stop can hand unfinished ones back at once. */
+  private readonly inFlight = new Map<string, QueueName>();
   private stopping = false;
   private wake: (() => void) | null = null;
   private loop: Promise<void> | null = null;
@@ -104,6 +106,7 @@ export class Runner {
   }
 
   private async execute(queue: QueueName, handler: JobHandler<never>, job: PgBoss.JobWithMetadata<never>): Promise<void> {
+    this.inFlight.set(job.id, queue);
     this.heartbeat.current = `${queue}:${job.id}`;
     void this.heartbeat.beat().catch(() => undefined);
     try {
@@ -122,6 +125,7 @@ export class Runner {
       await this.boss.fail(queue, job.id, { message }).catch(() => undefined);
       if (job.retryCount >= job.retryLimit) await this.giveUp(queue, job, message).catch(() => undefined);
     } finally {
+      this.inFlight.delete(job.id);
       this.heartbeat.current = null;
     }
   }
@@ -146,13 +150,27 @@ export class Runner {
     }
   }
 
-  /** Stops taking jobs, lets running ones finish (up to `graceMs`), then closes everything. */
-  async stop(graceMs = 10_000): Promise<void> {
+  /** Stops taking jobs, lets running ones finish (up to `graceMs`), hands the rest back, closes everything. */
+  async stop(graceMs = this.cfg.stopGraceMs): Promise<void> {
     this.stopping = true;
     this.wake?.();
     await this.loop;
     const until = Date.now() + graceMs;
     while (this.active > 0 && Date.now() < until) await sleep(100);
+    // Jobs still running are handed back now rather than after their expiry: failed jobs are
+    // retried by the other runners (handlers are idempotent; a re-claimed run starts afresh).
+    if (this.inFlight.size) {
+      // Release the runs first, so that a handler still finishing here cannot store a result.
+      await this.db
+        .query(`UPDATE runs SET status = 'queued', runner_id = NULL, progress = 0, progress_note = NULL WHERE runner_id = $1 AND status = 'running'`, [
+          this.cfg.runnerId,
+        ])
+        .catch(() => undefined);
+    }
+    for (const [id, queue] of this.inFlight) {
+      this.log(`handing ${queue} job ${id} back to the queue`);
+      await this.boss.fail(queue, id, { message: `runner ${this.cfg.runnerId} stopped` }).catch(() => undefined);
+    }
     await this.heartbeat.stop();
     await this.boss.stop({ graceful: false, close: true, wait: true }).catch(() => undefined);
     await this.ctx.executor.close();
