@@ -44,6 +44,14 @@ const marked = new Marked({ gfm: true, breaks: false, extensions: [blockMath, in
  * through DOMPurify after rendering, so raw HTML in a note cannot run script.
  */
 export function renderNote(markdown: string): string {
-  const html = marked.parse(markdown, { async: false });
-  return DOMPurify.sanitize(html, { USE_PROFILES: { html: true, mathMl: true, svg: true }, ADD_ATTR: ['target'] });
+  let html: string;
+  try {
+    html = marked.parse(markdown, { async: false });
+  } catch {
+    // Thousands of nested `>` or list levels overflow the Markdown parser's stack: show the text
+    // as written instead of failing the whole page for everyone who opens the note or comment.
+    html = `<pre>${markdown.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;')}</pre>`;
+  }
+  // No forms: a note must not be able to imitate a sign-in or any other input form.
+  return DOMPurify.sanitize(html, { USE_PROFILES: { html: true, mathMl: true, svg: true }, ADD_ATTR: ['target'], FORBID_TAGS: ['form'] });
 }
