@@ -1,4 +1,4 @@
-import { RESET_PASSWORD_PATH } from '@cribra/contracts';
+import { INVITATION_PATH, RESET_PASSWORD_PATH } from '@cribra/contracts';
 import { lazy, Suspense } from 'react';
 import { Navigate, Outlet, type RouteObject } from 'react-router-dom';
 import { LoadingState } from '../../components/loading-state';
@@ -12,10 +12,11 @@ const SignUpPage = lazy(() => import('../../features/auth/pages/sign-up-page'));
 const ResetPasswordPage = lazy(() => import('../../features/auth/pages/reset-password-page'));
 const ResetRoute = lazy(() => import('./reset-route'));
 const NotebooksPage = lazy(() => import('../../features/notebooks/pages/notebooks-page'));
-const NotebookPage = lazy(() => import('../../features/notebooks/pages/notebook-page'));
+const NotebookRoute = lazy(() => import('./notebook-route'));
 const DataPage = lazy(() => import('../../features/data/pages/data-page'));
 const AccountPage = lazy(() => import('../../features/account/pages/account-page'));
 const AdminUsersPage = lazy(() => import('../../features/admin/pages/admin-users-page'));
+const InvitationPage = lazy(() => import('../../features/invitations/pages/invitation-page'));
 const NotFoundPage = lazy(() => import('./not-found-page'));
 
 function Plain() {
@@ -41,6 +42,8 @@ export const routes: RouteObject[] = [
       { path: '/reset/:token', element: <ResetPasswordPage /> },
       // The e-mailed link: `${RESET_PASSWORD_PATH}?token=…`.
       { path: RESET_PASSWORD_PATH, element: <ResetPasswordPage /> },
+      // The e-mailed invitation link; works signed out (sign in or sign up on the page).
+      { path: `${INVITATION_PATH}/:token`, element: <InvitationPage /> },
     ],
   },
   {
@@ -48,7 +51,7 @@ export const routes: RouteObject[] = [
     children: [
       { path: '/', element: <Navigate to="/notebooks" replace /> },
       { path: '/notebooks', element: <NotebooksPage /> },
-      { path: '/notebooks/:id', element: <NotebookPage /> },
+      { path: '/notebooks/:id', element: <NotebookRoute /> },
       { path: '/data', element: <DataPage /> },
       { path: '/account', element: <AccountPage /> },
       { path: '/admin/users', element: <RequireAdmin><AdminUsersPage /></RequireAdmin> },

@@ -1,0 +1,8 @@
+export const collabKeys = {
+  invitations: (notebookId: string) => ['notebooks', notebookId, 'invitations'] as const,
+  review: (notebookId: string) => ['notebooks', notebookId, 'review'] as const,
+  reviews: (notebookId: string) => ['notebooks', notebookId, 'reviews'] as const,
+  verification: (id: string) => ['verifications', id] as const,
+  lock: (notebookId: string) => ['notebooks', notebookId, 'lock'] as const,
+  threads: (notebookId: string) => ['notebooks', notebookId, 'threads'] as const,
+};

@@ -1,0 +1,51 @@
+import type { VerificationCellStatus, VerificationView } from '@cribra/contracts';
+import { Alert, Box, Chip, LinearProgress, Table, TableBody, TableCell, TableHead, TableRow, Typography } from '@mui/material';
+
+const COLOUR: Record<VerificationCellStatus, 'default' | 'success' | 'error' | 'warning'> = {
+  pending: 'default',
+  same: 'success',
+  differs: 'error',
+  failed: 'error',
+  skipped: 'default',
+};
+
+/** Per-cell outcome of a re-verify: same digest, differs (with both digests), failed, skipped. */
+export function VerificationResults({ verification: v }: { verification: VerificationView }) {
+  const running = v.status === 'running';
+  return (
+    <Box aria-label="Re-verify results" component="section">
+      {running && <LinearProgress aria-label="Re-verifying" sx={{ mb: 1 }} />}
+      {!running && (
+        <Alert severity={v.allSame ? 'success' : 'warning'} sx={{ mb: 1 }}>
+          {v.allSame
+            ? 'Every cell gave the same outputs as recorded.'
+            : `${v.counts.differs} differ, ${v.counts.failed} failed: a sign-off needs every cell the same.`}
+        </Alert>
+      )}
+      <Table size="small" aria-label="Cells re-verified">
+        <TableHead>
+          <TableRow>
+            <TableCell>Cell</TableCell>
+            <TableCell>Result</TableCell>
+            <TableCell>Digest</TableCell>
+          </TableRow>
+        </TableHead>
+        <TableBody>
+          {v.cells.map((c) => (
+            <TableRow key={c.cellId}>
+              <TableCell className="mono">{c.position + 1} {c.kind}</TableCell>
+              <TableCell>
+                <Chip size="small" label={c.status} color={COLOUR[c.status]} />
+                {c.note && <Typography variant="caption" component="p">{c.note}</Typography>}
+                {c.error && <Typography variant="caption" color="error" component="p">{c.error.message}</Typography>}
+              </TableCell>
+              <TableCell className="mono" sx={{ fontSize: 11 }}>
+                {c.recordedDigest?.slice(0, 10) ?? '—'}{c.newDigest && c.newDigest !== c.recordedDigest ? ` → ${c.newDigest.slice(0, 10)}` : ''}
+              </TableCell>
+            </TableRow>
+          ))}
+        </TableBody>
+      </Table>
+    </Box>
+  );
+}
