@@ -24,14 +24,16 @@ export function crossRange(
     let j4 = next[o + 4]!, j5 = next[o + 5]!, j6 = next[o + 6]!, j7 = next[o + 7]!;
     const m0 = masks[o]!, m1 = masks[o + 1]!, m2 = masks[o + 2]!, m3 = masks[o + 3]!;
     const m4 = masks[o + 4]!, m5 = masks[o + 5]!, m6 = masks[o + 6]!, m7 = masks[o + 7]!;
-    // The eight progressions stay within p bytes of each other: step them together.
-    let jmax = Math.max(j0, j1, j2, j3, j4, j5, j6, j7);
-    while (jmax < end) {
-      buf[j0] &= m0; buf[j1] &= m1; buf[j2] &= m2; buf[j3] &= m3;
-      buf[j4] &= m4; buf[j5] &= m5; buf[j6] &= m6; buf[j7] &= m7;
-      j0 += p; j1 += p; j2 += p; j3 += p; j4 += p; j5 += p; j6 += p; j7 += p;
-      jmax += p;
+    // The eight progressions keep fixed distances: step one index and address the rest from it.
+    const d1 = j1 - j0, d2 = j2 - j0, d3 = j3 - j0, d4 = j4 - j0, d5 = j5 - j0, d6 = j6 - j0, d7 = j7 - j0;
+    const stop = end - Math.max(0, d1, d2, d3, d4, d5, d6, d7);
+    let J = j0;
+    while (J < stop) {
+      buf[J] &= m0; buf[J + d1] &= m1; buf[J + d2] &= m2; buf[J + d3] &= m3;
+      buf[J + d4] &= m4; buf[J + d5] &= m5; buf[J + d6] &= m6; buf[J + d7] &= m7;
+      J += p;
     }
+    j0 = J; j1 = J + d1; j2 = J + d2; j3 = J + d3; j4 = J + d4; j5 = J + d5; j6 = J + d6; j7 = J + d7;
     while (j0 < end) { buf[j0] &= m0; j0 += p; }
     while (j1 < end) { buf[j1] &= m1; j1 += p; }
     while (j2 < end) { buf[j2] &= m2; j2 += p; }
