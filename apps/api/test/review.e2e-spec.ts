@@ -111,6 +111,11 @@ describe('the review flow', () => {
     expect(verification.counts).toMatchObject({ same: 2, skipped: 1, differs: 0, failed: 0, pending: 0 });
     const runs = await owner.call('get', `/api/notebooks/${nb.id}/runs?pageSize=50`);
     expect(runs.body.items.filter((r: { purpose: string }) => r.purpose === 'reverify')).toHaveLength(2);
+    // The cells still show their recorded runs, not the re-verify runs.
+    const shown = await owner.call('get', `/api/notebooks/${nb.id}`);
+    const queryCells = shown.body.cells.filter((c: { kind: string }) => c.kind !== 'note');
+    expect(queryCells).toHaveLength(2);
+    for (const cell of queryCells) expect(cell.latestRun.purpose).toBe('run');
 
     // Re-verify runs did not change the digest; the sign-off is valid and the notebook may be locked.
     let state: ReviewStateView = (await owner.call('get', `/api/notebooks/${nb.id}/review`)).body;

@@ -91,12 +91,12 @@ export async function pageRuns(
   return { items: rows.map(toRunView), total: n };
 }
 
-/** The latest run of each given cell (any revision). */
+/** The latest ordinary run of each given cell (any revision); re-verify runs never replace what a cell shows. */
 export async function latestRunsByCell(db: Db, cellIds: string[]): Promise<Map<string, RunView>> {
   if (!cellIds.length) return new Map();
   const rows: RunRow[] = await db.query(
     `SELECT * FROM (${SELECT_RUN} WHERE r.cell_id = ANY($1::uuid[])) x
-      WHERE x.id IN (SELECT DISTINCT ON (cell_id) id FROM runs WHERE cell_id = ANY($1::uuid[])
+      WHERE x.id IN (SELECT DISTINCT ON (cell_id) id FROM runs WHERE cell_id = ANY($1::uuid[]) AND purpose = 'run'
                       ORDER BY cell_id, queued_at DESC, id)`,
     [cellIds],
   );
