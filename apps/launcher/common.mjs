@@ -131,7 +131,7 @@ export function stopService(child, graceMs = 8000) {
 export function ensureDependencies() {
   if (existsSync(join(ROOT, 'node_modules', '.package-lock.json'))) return;
   const lock = existsSync(join(ROOT, 'package-lock.json'));
-  step(`Installing npm dependencies (${lock ? 'npm ci' : 'npm install'}; about a minute on a fresh machine)…`);
+  step(`Installing npm dependencies (${lock ? 'npm ci' : 'npm install'}; a few minutes on a fresh machine)…`);
   run('npm', [lock ? 'ci' : 'install', '--no-audit', '--no-fund'], { what: 'Installing npm dependencies' });
 }
 

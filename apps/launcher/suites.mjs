@@ -14,12 +14,12 @@ export const SUITES = [
   { name: 'e2e', title: 'vitest e2e (browser tests on the running stack)', stack: true, browser: true },
 ];
 
-function commandFor(suite, report) {
+function commandFor(suite, report, filters) {
   const node = process.execPath;
   if (suite.name === 'api') {
-    return [node, [join(ROOT, 'node_modules/jest/bin/jest.js'), '--config', 'apps/api/jest.config.js', '--runInBand', '--forceExit', '--json', `--outputFile=${report}`]];
+    return [node, [join(ROOT, 'node_modules/jest/bin/jest.js'), '--config', 'apps/api/jest.config.js', '--runInBand', '--forceExit', '--json', `--outputFile=${report}`, ...filters]];
   }
-  return [node, [join(ROOT, 'node_modules/vitest/vitest.mjs'), 'run', '--project', suite.name, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`]];
+  return [node, [join(ROOT, 'node_modules/vitest/vitest.mjs'), 'run', '--project', suite.name, '--reporter=default', '--reporter=json', `--outputFile.json=${report}`, ...filters]];
 }
 
 /** Jest and vitest write the same JSON summary layout; file-level crashes count as failures too. */
@@ -55,9 +55,10 @@ export function countReport(report, exitCode) {
   return { passed, failed, skipped, notes };
 }
 
-export function runSuite(suite, { env, reportDir }) {
+/** `filters`: file-name filters handed to Jest/vitest (from `npm test -- --only=api auth`). */
+export function runSuite(suite, { env, reportDir, filters = [] }) {
   const report = join(reportDir, `${suite.name}.json`);
-  const [cmd, args] = commandFor(suite, report);
+  const [cmd, args] = commandFor(suite, report, filters);
   console.log('');
   step(bold(`Suite ${suite.name}: ${suite.title}`));
   const started = Date.now();

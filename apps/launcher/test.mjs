@@ -1,5 +1,6 @@
 // `npm test`: the whole stack on a throwaway cluster (ports 4320–4323), every suite, one summary line.
-// `npm test -- --only=api,e2e` runs a subset (names: libs, web, api, e2e).
+// `npm test -- --only=api,e2e` runs a subset (names: libs, web, api, e2e); further words are file
+// filters for those suites, e.g. `npm test -- --only=api auth session`.
 import { randomBytes } from 'node:crypto';
 import { chmodSync, existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
@@ -49,6 +50,7 @@ function summary(results) {
 
 async function main() {
   const suites = selectedSuites();
+  const filters = process.argv.slice(2).filter((a) => !a.startsWith('--'));
   const results = [];
   process.on('SIGINT', () => cleanup().then(() => process.exit(130)));
   process.on('SIGTERM', () => cleanup().then(() => process.exit(143)));
@@ -97,7 +99,7 @@ async function main() {
         continue;
       }
     }
-    results.push(await runSuite(suite, { env, reportDir: tmp }));
+    results.push(await runSuite(suite, { env, reportDir: tmp, filters }));
   }
   step('Tearing down the test stack…');
   await cleanup();
