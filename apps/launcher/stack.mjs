@@ -33,6 +33,13 @@ export function build({ forceWeb = false } = {}) {
   run(node, [bin('vite/bin/vite.js'), 'build', '--logLevel', 'warn'], { what: 'vite build' });
 }
 
+let current = null;
+
+/** Stops whatever the latest bringUp() has started so far (also while it is still starting). */
+export function stopCurrent() {
+  return current ? current() : Promise.resolve();
+}
+
 /**
  * Brings up PostgreSQL and the services. `ports` = {api, pg, smtp, mailWeb}.
  * Returns {env, services, stop()}; stop() is idempotent and stops only what this call started.
@@ -53,6 +60,7 @@ export async function bringUp({ ports, dataDir, dbName = 'cribra', sessionSecret
     for (const child of [...services].reverse()) await stopService(child);
     pg.stop();
   };
+  current = stop;
 
   try {
     pg.init();

@@ -3,7 +3,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { ROOT, LaunchError, bold, ensureDependencies, requireFreePorts, step, warn } from './common.mjs';
-import { bringUp, build, watchServices } from './stack.mjs';
+import { bringUp, build, stopCurrent, watchServices } from './stack.mjs';
 
 // CRIBRA_PORT_BASE moves all four ports (e.g. 4330 → 4330–4333) when another copy already runs.
 const BASE = Number(process.env.CRIBRA_PORT_BASE ?? 4310);
@@ -47,6 +47,13 @@ async function main() {
     [PORTS.smtp, 'SMTP fake'],
     [PORTS.mailWeb, 'SMTP fake inbox page'],
   ]);
+  // Ctrl-C while still starting: stop what is already up.
+  const early = () => {
+    step('Interrupted: stopping what was started…');
+    stopCurrent().then(() => process.exit(130));
+  };
+  process.on('SIGINT', early);
+  process.on('SIGTERM', early);
   mkdirSync(DATA, { recursive: true });
   ensureDependencies();
   build();
@@ -65,6 +72,8 @@ async function main() {
     step('Stopped. Data kept in .data/.');
     process.exit(code);
   };
+  process.off('SIGINT', early);
+  process.off('SIGTERM', early);
   process.on('SIGINT', () => shutdown(0));
   process.on('SIGTERM', () => shutdown(0));
   process.on('SIGHUP', () => shutdown(0));

@@ -6,7 +6,7 @@ import { chmodSync, existsSync, mkdtempSync, rmSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { LaunchError, aptInstall, bold, ensureDependencies, requireFreePorts, step, warn } from './common.mjs';
-import { bringUp, build } from './stack.mjs';
+import { bringUp, build, stopCurrent } from './stack.mjs';
 import { SUITES, runSuite } from './suites.mjs';
 
 const PORTS = { api: 4320, pg: 4321, smtp: 4322, mailWeb: 4323 };
@@ -29,7 +29,7 @@ let cleaning = false;
 async function cleanup() {
   if (cleaning) return;
   cleaning = true;
-  if (stack) await stack.stop();
+  await stopCurrent(); // also covers a stack that was still starting
   if (tmp) rmSync(tmp, { recursive: true, force: true });
 }
 
