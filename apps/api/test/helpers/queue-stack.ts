@@ -39,6 +39,8 @@ export class QueueStack {
   constructor() {
     const base = new URL(process.env.DATABASE_URL!);
     this.admin = new PgClient({ connectionString: Object.assign(new URL(base), { pathname: '/postgres' }).toString() });
+    // A test may restart PostgreSQL under this idle connection; stop() then drops with a new one.
+    this.admin.on('error', () => undefined);
     this.url = Object.assign(new URL(base), { pathname: `/${this.name}` }).toString();
   }
 
@@ -91,8 +93,14 @@ export class QueueStack {
     await this.app?.close();
     // Without FORCE: a connection some component still holds keeps the database (in the throwaway
     // test cluster) instead of being killed under it, which would surface as an unhandled error.
-    await this.admin.query(`DROP DATABASE IF EXISTS ${this.name}`).catch(() => undefined);
-    await this.admin.end();
+    const dropped = await this.admin.query(`DROP DATABASE IF EXISTS ${this.name}`).then(() => true, () => false);
+    await this.admin.end().catch(() => undefined);
+    if (!dropped) {
+      const again = new PgClient({ connectionString: Object.assign(new URL(process.env.DATABASE_URL!), { pathname: '/postgres' }).toString() });
+      again.on('error', () => undefined);
+      await again.connect().then(() => again.query(`DROP DATABASE IF EXISTS ${this.name}`)).catch(() => undefined);
+      await again.end().catch(() => undefined);
+    }
     for (const [k, v] of Object.entries(this.savedEnv)) {
       if (v === undefined) delete process.env[k];
       else process.env[k] = v;
