@@ -2,6 +2,6 @@
 export * from './prime-block';
 export * from './prime-block-json';
 export * from './combine';
-export * from './range';
+export { parseSieveRange, sievePrimeBlock, SIEVE_MAX_TO, type RangeEnd, type SieveOptions } from './range';
 export * from './queries';
 export { compilePattern, MAX_PATTERN_DIAMETER, type CompiledPattern } from './pattern';
