@@ -17,6 +17,13 @@ describe('Hardy–Littlewood predictions beside actual counts', () => {
     expect(p.predicted).toBeCloseTo(p.constant * logIntegralK(4, 1e9), 6);
     expect(p.x).toBe(1_000_000_000n);
   });
+  it('predicts beyond the sieve limit (x = 10^20) and refuses malformed x', () => {
+    const p = hardyLittlewoodPrediction([0, 2], '1e20');
+    expect(p.x).toBe(10n ** 20n);
+    expect(p.predicted).toBeCloseTo(p.constant * logIntegralK(2, 1e20), -2);
+    expect(() => hardyLittlewoodPrediction([0, 2], 'ten')).toThrow(/not a non-negative integer/);
+    expect(() => compareWithHardyLittlewood([0, 2], '1e16')).toThrow(/above the sieve limit/);
+  });
 });
 
 describe('crossings of actual − predicted', () => {

@@ -29,8 +29,9 @@ export interface HardyLittlewoodComparison extends HardyLittlewoodPrediction {
 }
 
 /**
- * S(H)·Li_k(x), the Hardy–Littlewood prediction for the count of n ≤ x with every n + h prime.
- * @throws EngineError as {@link singularSeries} and {@link logIntegralK}.
+ * S(H)·Li_k(x), the Hardy–Littlewood prediction for the count of n ≤ x with every n + h prime
+ * (x any integer from 2 to 10^300; no sieving).
+ * @throws EngineError(input) for a malformed x; as {@link singularSeries} and {@link logIntegralK}.
  */
 export function hardyLittlewoodPrediction(
   pattern: ReadonlyArray<number | bigint | string>,
@@ -133,6 +134,14 @@ export function hardyLittlewoodCrossings(
   };
 }
 
+/** A non-negative integer of any size (decimal string, "1e20" form, bigint or safe number). */
 function toBigEnd(v: RangeEnd): bigint {
-  return parseSieveRange(0n, v).to;
+  if (typeof v === 'bigint') {
+    if (v < 0n) throw inputError(`${v} is negative`);
+    return v;
+  }
+  if (typeof v === 'number' && Number.isSafeInteger(v) && v >= 0) return BigInt(v);
+  const m = /^\s*(\d+)(?:e(\d+))?\s*$/i.exec(String(v));
+  if (!m || Number(m[2] ?? 0) > 300) throw inputError(`"${String(v)}" is not a non-negative integer up to 10^300`);
+  return BigInt(m[1]!) * 10n ** BigInt(m[2] ?? '0');
 }
