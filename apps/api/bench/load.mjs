@@ -1,0 +1,99 @@
+// `npm run bench:load [-- --url=http://127.0.0.1:4310] [--connections=50] [--seconds=10] [--runs=400]`
+// Load on a running stack (`npm start`, or any stack with open sign-up and at least one runner):
+//  1. notebook reads (GET /api/notebooks/:id) — autocannon, N connections, fixed duration;
+//  2. a light cell run accepted (POST /api/cells/:id/runs → 202: run row stored and job queued) —
+//     autocannon, N connections, bounded request count;
+//  3. a light cell run completed (POST, then the run read until it has succeeded on a runner) —
+//     N concurrent clients, bounded run count; and how fast the runners drained the backlog of 2.
+// The light cell is an admissibility query on a 50-tuple. Prints p50/p95/p99 and throughput.
+import autocannon from 'autocannon';
+import { BenchClient, admissibleTuple, fmt, summary } from './bench-client.mjs';
+
+const arg = (name, fallback) => process.argv.slice(2).find((a) => a.startsWith(`--${name}=`))?.split('=')[1] ?? fallback;
+const BASE = arg('url', process.env.BENCH_URL ?? 'http://127.0.0.1:4310');
+const CONNECTIONS = Number(arg('connections', 50));
+const SECONDS = Number(arg('seconds', 10));
+const RUNS = Number(arg('runs', 400));
+const ACCEPTS = Number(arg('accepts', 1000));
+
+function cannon(opts) {
+  return new Promise((resolve, reject) => {
+    const times = [];
+    const statuses = new Map();
+    const inst = autocannon({ ...opts, url: `${BASE}${opts.path}` }, (err, result) => (err ? reject(err) : resolve({ result, times, statuses })));
+    inst.on('response', (_client, status, _bytes, ms) => {
+      times.push(ms);
+      statuses.set(status, (statuses.get(status) ?? 0) + 1);
+    });
+  });
+}
+
+async function main() {
+  const c = new BenchClient(BASE);
+  const health = await c.call('GET', '/api/health').catch((e) => ({ status: 0, text: e.message }));
+  if (health.status !== 200) throw new Error(`no API at ${BASE} (${health.text ?? health.status}); start one with \`npm start\` or pass --url=`);
+  await c.signUpFresh('load');
+  await c.fetchCsrf();
+  const tuple = admissibleTuple(50);
+  const nb = (await c.call('POST', '/api/notebooks', { title: 'Load bench' })).body;
+  const cell = (await c.call('POST', `/api/notebooks/${nb.id}/cells`, { kind: 'query', source: `admissible({${tuple.join(', ')}})` })).body;
+  for (let i = 0; i < 4; i++) await c.call('POST', `/api/notebooks/${nb.id}/cells`, { kind: 'note', source: `# Note ${i}\n\nThe 50-tuple of primes above 50, shifted.` });
+  const headers = { Cookie: c.cookieHeader(), 'x-csrf-token': c.csrf };
+  const rows = [];
+
+  // 1. Reads.
+  const reads = await cannon({ path: `/api/notebooks/${nb.id}`, connections: CONNECTIONS, duration: SECONDS, headers });
+  const r1 = summary(reads.times);
+  rows.push(['notebook read (GET, 5 cells)', `${CONNECTIONS} conn, ${SECONDS} s`, r1, reads.result.requests.average, reads.statuses]);
+
+  // 3 before 2, so the completion latency is measured on an empty queue.
+  // 3. Completed runs: each client posts a run and reads it until it has succeeded.
+  const done = [];
+  let next = 0;
+  const failures = [];
+  const t3 = Date.now();
+  await Promise.all(Array.from({ length: CONNECTIONS }, async () => {
+    while (next < RUNS) {
+      next++;
+      const t = performance.now();
+      const posted = await c.call('POST', `/api/cells/${cell.id}/runs`);
+      if (posted.status !== 202) { failures.push(posted.status); continue; }
+      for (;;) {
+        const r = await c.call('GET', `/api/runs/${posted.body.id}`);
+        if (r.body?.status === 'succeeded') { done.push(performance.now() - t); break; }
+        if (r.body?.status === 'failed' || r.body?.status === 'cancelled') { failures.push(r.body.status); break; }
+        await new Promise((res) => setTimeout(res, 20));
+      }
+    }
+  }));
+  const s3 = (Date.now() - t3) / 1000;
+  rows.push(['light cell run completed (POST → succeeded on a runner)', `${CONNECTIONS} clients, ${RUNS} runs`, summary(done), done.length / s3, new Map(failures.length ? [['failures', failures.length]] : [[202, done.length]])]);
+
+  // 2. Accepted runs (bounded count), then the backlog drain.
+  const accepts = await cannon({ path: `/api/cells/${cell.id}/runs`, method: 'POST', connections: CONNECTIONS, amount: ACCEPTS, headers });
+  const r2 = summary(accepts.times);
+  rows.push(['light cell run accepted (POST → 202 queued)', `${CONNECTIONS} conn, ${ACCEPTS} requests`, r2, accepts.result.requests.average, accepts.statuses]);
+  const tDrain = Date.now();
+  let left = Infinity;
+  while (left > 0 && Date.now() - tDrain < 600_000) {
+    const page = await c.call('GET', `/api/cells/${cell.id}/runs?page=1&pageSize=100`);
+    left = (page.body?.items ?? page.body ?? []).filter((r) => r.status === 'queued' || r.status === 'running').length;
+    if (left > 0) await new Promise((res) => setTimeout(res, 500));
+  }
+  const drainS = (Date.now() - tDrain) / 1000;
+
+  console.log(`\nLoad on ${BASE} (node ${process.version}, ${new Date().toISOString()})`);
+  console.log('| scenario | load | p50 | p95 | p99 | max | throughput | statuses |');
+  console.log('|---|---|--:|--:|--:|--:|--:|---|');
+  for (const [name, load, s, rps, st] of rows) {
+    console.log(`| ${name} | ${load} | ${fmt(s.p50)} | ${fmt(s.p95)} | ${fmt(s.p99)} | ${fmt(s.max)} | ${rps.toFixed(0)}/s | ${[...st].map(([k, v]) => `${k}×${v}`).join(' ')} |`);
+  }
+  console.log(`runner backlog of ${ACCEPTS} accepted runs drained in ${drainS.toFixed(1)} s (${(ACCEPTS / drainS).toFixed(0)} runs/s completed)${left > 0 ? ' — NOT fully drained' : ''}`);
+  console.log(`target: p95 ≤ 50 ms for a light cell run accepted by the API: ${r2.p95 <= 50 ? 'met' : 'NOT met'} (${fmt(r2.p95)})`);
+  await c.call('DELETE', `/api/notebooks/${nb.id}`);
+}
+
+main().catch((e) => {
+  console.error(`bench:load: ${e.message}`);
+  process.exitCode = 1;
+});
