@@ -1,9 +1,9 @@
 // Sizes of the sieve segments and the prime classes that share their work.
 
 /** Bytes of one piece sieved by the small primes at a time (the L1 data cache). */
-export const L1_BYTES = 1 << 14;
+export const L1_BYTES = 1 << 15;
 /** Primes below this bound have several hits per L1 piece and are sieved piece by piece. */
-export const SMALL_PRIME_BOUND = 1 << 13;
+export const SMALL_PRIME_BOUND = 1 << 11;
 
 /** Sieving primes from this bound on go to the bucket sieve (fewer than one hit per class per segment). */
 export const LARGE_PRIME_BOUND = 1 << 19;
