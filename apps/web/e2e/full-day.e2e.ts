@@ -115,7 +115,7 @@ describe('a whole day in Cribra', () => {
     await reviewer.getByText('Every cell gave the same outputs as recorded.').waitFor({ timeout: 120_000 });
     await reviewer.getByLabel('Review comment').fill('Re-ran every cell: same digests. The claim is checked for p ≤ 19 only.');
     await reviewer.getByRole('button', { name: 'Sign off' }).click();
-    await reviewer.getByText('Signed off.').waitFor();
+    await reviewer.getByText('You signed off this revision.').waitFor();
     await saveScreenshot(reviewer, 'review');
   });
 

@@ -8,6 +8,7 @@ export const theme = createTheme({
     secondary: { main: palette.ink },
     success: { main: palette.holds },
     error: { main: palette.fails },
+    warning: { main: palette.pending },
     background: { default: palette.paper, paper: palette.sheet },
     text: { primary: palette.ink, secondary: palette.inkSoft },
     divider: palette.rule,

@@ -9,6 +9,7 @@ export const palette = {
   accentDark: '#154b40',
   holds: '#2f6b2f',
   fails: '#a3321f',
+  pending: '#8a6a1f',
 } as const;
 
 export const monoFont = '"IBM Plex Mono", ui-monospace, monospace';

@@ -13,6 +13,7 @@ export default function NotebookRoute() {
       sidePanel={(nb) => (
         <CollaborationPanel
           notebook={nb}
+          userId={me.data?.id}
           siteRole={me.data?.siteRole}
           onNotebookChanged={() => {
             void qc.invalidateQueries({ queryKey: notebookKeys.detail(nb.id) });

@@ -11,10 +11,10 @@ registerSift(monaco, siftService);
 export interface SiftEditorProps {
   value: string;
   onChange: (value: string) => void;
-  /** Ctrl/Cmd+Enter. */
-  onRun?: () => void;
-  /** Ctrl/Cmd+S. */
-  onSave?: () => void;
+  /** Ctrl/Cmd+Enter, with the editor's text at that moment (state may lag the last keystrokes). */
+  onRun?: (text: string) => void;
+  /** Ctrl/Cmd+S, with the editor's text at that moment. */
+  onSave?: (text: string) => void;
   /** Ctrl/Cmd+Alt+N: a new cell below this one. */
   onAddBelow?: () => void;
   readOnly?: boolean;
@@ -47,8 +47,8 @@ export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave,
   const onMount: OnMount = (editor) => {
     editorRef.current = editor;
     const { KeyMod, KeyCode } = monaco;
-    editor.addCommand(KeyMod.CtrlCmd | KeyCode.Enter, () => handlers.current.onRun?.());
-    editor.addCommand(KeyMod.CtrlCmd | KeyCode.KeyS, () => handlers.current.onSave?.());
+    editor.addCommand(KeyMod.CtrlCmd | KeyCode.Enter, () => handlers.current.onRun?.(editor.getValue()));
+    editor.addCommand(KeyMod.CtrlCmd | KeyCode.KeyS, () => handlers.current.onSave?.(editor.getValue()));
     editor.addCommand(KeyMod.CtrlCmd | KeyMod.Alt | KeyCode.KeyN, () => handlers.current.onAddBelow?.());
     const model = editor.getModel();
     if (model && language === SIFT_LANGUAGE_ID) updateDiagnostics(monaco, model, siftService);

@@ -6,13 +6,14 @@ import { ReviewSection } from './review-section';
 
 interface Props {
   notebook: NotebookView;
+  userId?: string;
   siteRole?: SiteRole;
   /** Called after a change of the notebook's status (review asked, sign-off, lock). */
   onNotebookChanged: () => void;
 }
 
 /** The side panel beside the cells: review and lock, members and invitations. */
-export function CollaborationPanel({ notebook, siteRole, onNotebookChanged }: Props) {
+export function CollaborationPanel({ notebook, userId, siteRole, onNotebookChanged }: Props) {
   const [tab, setTab] = useState<'review' | 'members'>('review');
   return (
     <Paper sx={{ maxHeight: 'calc(100vh - 80px)', overflowY: 'auto' }}>
@@ -22,7 +23,7 @@ export function CollaborationPanel({ notebook, siteRole, onNotebookChanged }: Pr
       </Tabs>
       <Box role="tabpanel" id={`collab-panel-${tab}`} aria-labelledby={`collab-tab-${tab}`} sx={{ p: 2 }}>
         {tab === 'review' ? (
-          <ReviewSection notebook={notebook} siteRole={siteRole} onChanged={onNotebookChanged} />
+          <ReviewSection notebook={notebook} userId={userId} siteRole={siteRole} onChanged={onNotebookChanged} />
         ) : (
           <MembersSection notebook={notebook} canManage={notebook.myRole === 'owner' || siteRole === 'admin'} />
         )}

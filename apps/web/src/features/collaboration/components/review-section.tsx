@@ -15,11 +15,12 @@ import { VerificationResults } from './verification-results';
 
 interface Props {
   notebook: NotebookView;
+  userId?: string;
   siteRole?: SiteRole;
   onChanged: () => void;
 }
 
-export function ReviewSection({ notebook, siteRole, onChanged }: Props) {
+export function ReviewSection({ notebook, userId, siteRole, onChanged }: Props) {
   const state = useReviewState(notebook.id, notebook.revision);
   const request = useRequestReview(notebook.id, onChanged);
   const reverify = useStartVerification(notebook.id);
@@ -85,7 +86,10 @@ export function ReviewSection({ notebook, siteRole, onChanged }: Props) {
           <VerificationResults verification={verification.data} />
         </Box>
       )}
-      {role === 'reviewer' && s.status === 'in_review' && (
+      {role === 'reviewer' && s.status === 'in_review' && s.validSignoffs.some((r) => r.reviewer.id === userId) && (
+        <Alert severity="success" role="status">You signed off this revision.</Alert>
+      )}
+      {role === 'reviewer' && s.status === 'in_review' && !s.validSignoffs.some((r) => r.reviewer.id === userId) && (
         <ReviewForm notebookId={notebook.id} state={s} verification={verification.data ?? s.latestVerification} onChanged={onChanged} />
       )}
       {locking && <LockDialog notebookId={notebook.id} cellCount={notebook.cells.length} state={s} onClose={() => setLocking(false)} onChanged={onChanged} />}

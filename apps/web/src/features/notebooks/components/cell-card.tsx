@@ -39,9 +39,9 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
   const active = !!run && ACTIVE_RUN_STATUSES.includes(run.status);
   const runnable = cell.kind !== 'note';
 
-  const doRun = async () => {
+  const doRun = async (text?: string) => {
     if (!runnable || !canRun || active) return;
-    const saved = canEdit ? await d.save().catch(() => null) : cell;
+    const saved = canEdit ? await d.save(text).catch(() => null) : cell;
     if (saved) runCell.mutate(saved.id);
   };
   const actionError = d.saveError ?? runCell.error ?? cancel.error;
@@ -61,7 +61,7 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
         <CellToolbar
           runnable={runnable} canRun={canRun} canEdit={canEdit} active={active} dirty={d.dirty} saving={d.saving}
           isFirst={index === 0} isLast={index === count - 1} historyOpen={historyOpen}
-          onRun={doRun} onCancel={() => run && cancel.mutate(run.id)} onSave={() => void d.save()}
+          onRun={() => void doRun()} onCancel={() => run && cancel.mutate(run.id)} onSave={() => void d.save()}
           onMove={(by) => onMove(cell, by)} onDelete={() => onDelete(cell)} onToggleHistory={() => setHistoryOpen((o) => !o)}
         />
       </Box>
@@ -72,8 +72,8 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
           value={d.draft}
           replaceKey={d.replaceKey}
           onChange={d.setDraft}
-          onRun={doRun}
-          onSave={() => void d.save()}
+          onRun={(text) => void doRun(text)}
+          onSave={(text) => void d.save(text)}
           onAddBelow={() => onAddBelow(cell)}
           readOnly={!canEdit}
           label={`Source of cell ${index + 1} (${cell.kind})`}

@@ -53,8 +53,14 @@ export function useCellDraft(cell: CellView) {
     saving: update.isPending,
     saveError: update.error && !staleCell(update.error) ? update.error : null,
     conflict,
-    /** Saves unsaved text; resolves to the saved cell, or null when a conflict stopped it. */
-    save: (): Promise<CellView | null> => (dirty ? saveAt(cell.revision, draft) : Promise.resolve(cell)),
+    /**
+     * Saves unsaved text (`text` when given: the editor's own, which may be ahead of the draft state);
+     * resolves to the saved cell, or null when a conflict stopped it.
+     */
+    save: (text: string = draft): Promise<CellView | null> => {
+      if (text !== draft) setDraft(text);
+      return text !== cell.source ? saveAt(cell.revision, text) : Promise.resolve(cell);
+    },
     keepMine: () => (conflict ? saveAt(conflict.revision, draft) : Promise.resolve(null)),
     takeTheirs: () => {
       if (!conflict) return;

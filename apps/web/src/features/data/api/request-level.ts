@@ -1,0 +1,13 @@
+import type { ComputationView } from '@cribra/contracts';
+import { useMutation, useQueryClient } from '@tanstack/react-query';
+import { api } from '../../../lib/api-client';
+import { levelsKey } from './list-levels';
+
+export function requestLevel(prime: number): Promise<ComputationView> {
+  return api.post<ComputationView>(`/levels/${prime}/computations`);
+}
+
+export function useRequestLevel() {
+  const qc = useQueryClient();
+  return useMutation({ mutationFn: requestLevel, onSuccess: () => qc.invalidateQueries({ queryKey: levelsKey }) });
+}

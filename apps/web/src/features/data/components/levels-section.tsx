@@ -1,0 +1,75 @@
+import type { WheelLevelSummary } from '@cribra/contracts';
+import { Alert, Box, Button, LinearProgress, Paper, Table, TableBody, TableCell, TableHead, TableRow, Typography } from '@mui/material';
+import { EmptyState } from '../../../components/empty-state';
+import { ErrorState } from '../../../components/error-state';
+import { LoadingState } from '../../../components/loading-state';
+import { errorMessage } from '../../../lib/api-error';
+import { groupDigits } from '../../../lib/format';
+import { useLevels } from '../api/list-levels';
+import { useRequestLevel } from '../api/request-level';
+import { nextLevelPrime } from '../lib/next-level';
+
+function Progress({ level }: { level: WheelLevelSummary }) {
+  if (level.status !== 'computing' && level.status !== 'pending') return <>{level.status}</>;
+  const pct = level.chunksTotal ? Math.round((100 * level.chunksDone) / level.chunksTotal) : 0;
+  return (
+    <Box sx={{ minWidth: 120 }}>
+      <LinearProgress variant={level.chunksTotal ? 'determinate' : 'indeterminate'} value={pct} aria-label={`Level ${level.prime} progress`} />
+      <Typography variant="caption">{level.chunksDone} of {level.chunksTotal || '?'} chunks</Typography>
+    </Box>
+  );
+}
+
+interface Props {
+  selected: number | null;
+  onSelect: (prime: number) => void;
+}
+
+export function LevelsSection({ selected, onSelect }: Props) {
+  const levels = useLevels();
+  const request = useRequestLevel();
+  if (levels.isPending) return <LoadingState label="Loading wheel levels…" />;
+  if (levels.isError) return <ErrorState error={levels.error} title="Could not load wheel levels" onRetry={() => levels.refetch()} />;
+  const next = nextLevelPrime(levels.data);
+  return (
+    <Box component="section" aria-labelledby="levels-heading">
+      <Box sx={{ display: 'flex', alignItems: 'center', mb: 1, gap: 2 }}>
+        <Typography id="levels-heading" variant="h3" component="h2" sx={{ flex: 1 }}>Stored wheel levels</Typography>
+        <Button variant="contained" onClick={() => request.mutate(next)} disabled={request.isPending}>Compute level {next}</Button>
+      </Box>
+      {request.isError && <Alert severity="error" sx={{ mb: 1 }}>{errorMessage(request.error)}</Alert>}
+      {levels.data.length === 0 ? (
+        <EmptyState title="No wheel level stored yet">Ask for level 2 to start; each level p holds the reduced residue system modulo p#.</EmptyState>
+      ) : (
+        <Paper sx={{ overflowX: 'auto' }}>
+          <Table size="small" aria-label="Wheel levels">
+            <TableHead>
+              <TableRow>
+                <TableCell align="right">p</TableCell>
+                <TableCell align="right">p#</TableCell>
+                <TableCell align="right">φ(p#)</TableCell>
+                <TableCell align="right">largest gap</TableCell>
+                <TableCell>status</TableCell>
+                <TableCell />
+              </TableRow>
+            </TableHead>
+            <TableBody>
+              {levels.data.map((l) => (
+                <TableRow key={l.prime} selected={selected === l.prime} hover>
+                  <TableCell align="right" className="mono">{l.prime}</TableCell>
+                  <TableCell align="right" className="mono">{groupDigits(l.modulus)}</TableCell>
+                  <TableCell align="right" className="mono">{groupDigits(l.phi)}</TableCell>
+                  <TableCell align="right" className="mono">{l.largestGap ?? '—'}</TableCell>
+                  <TableCell><Progress level={l} /></TableCell>
+                  <TableCell>
+                    <Button onClick={() => onSelect(l.prime)} disabled={l.status !== 'stored'} aria-label={`Show level ${l.prime}`}>Histogram</Button>
+                  </TableCell>
+                </TableRow>
+              ))}
+            </TableBody>
+          </Table>
+        </Paper>
+      )}
+    </Box>
+  );
+}
