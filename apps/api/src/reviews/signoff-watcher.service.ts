@@ -18,6 +18,7 @@ export class SignoffWatcherService implements OnModuleInit, OnModuleDestroy {
   private readonly logger = new Logger('SignoffWatcher');
   private client: Client | null = null;
   private closing = false;
+  private reconnecting = false;
   private readonly pending = new Map<string, NodeJS.Timeout>();
 
   constructor(
@@ -42,13 +43,21 @@ export class SignoffWatcherService implements OnModuleInit, OnModuleDestroy {
       }
     });
     client.on('error', (err) => {
+      // One lost connection may raise several errors; only the current client schedules a retry.
+      if (this.client !== client && this.client !== null) return;
       this.logger.warn(`Notification connection lost (${err.message}); reconnecting`);
       this.client = null;
-      if (!this.closing) setTimeout(() => void this.connect().catch(() => undefined), 1000).unref();
+      void client.end().catch(() => undefined);
+      this.reconnectSoon();
     });
-    await client.connect();
-    await client.query('LISTEN cribra_notebooks');
-    await client.query('LISTEN cribra_runs');
+    try {
+      await client.connect();
+      await client.query('LISTEN cribra_notebooks');
+      await client.query('LISTEN cribra_runs');
+    } catch (e) {
+      void client.end().catch(() => undefined);
+      throw e;
+    }
     this.client = client;
   }
 
@@ -60,6 +69,20 @@ export class SignoffWatcherService implements OnModuleInit, OnModuleDestroy {
     }, DEBOUNCE_MS);
     t.unref();
     this.pending.set(notebookId, t);
+  }
+
+  /** Retries every second until connected: a database restart may take longer than one try. */
+  private reconnectSoon(): void {
+    if (this.closing || this.reconnecting) return;
+    this.reconnecting = true;
+    setTimeout(() => {
+      this.reconnecting = false;
+      if (this.closing || this.client) return;
+      void this.connect().catch((e: Error) => {
+        this.logger.warn(`Could not listen again (${e.message}); retrying`);
+        this.reconnectSoon();
+      });
+    }, 1000).unref();
   }
 
   async onModuleDestroy(): Promise<void> {

@@ -22,6 +22,7 @@ export class RunEventsService implements OnModuleInit, OnModuleDestroy {
   private readonly events = new Subject<NotebookEvent>();
   private client: Client | null = null;
   private closing = false;
+  private reconnecting = false;
 
   constructor(@Inject(appConfig.KEY) private readonly cfg: ConfigType<typeof appConfig>) {}
 
@@ -42,14 +43,36 @@ export class RunEventsService implements OnModuleInit, OnModuleDestroy {
       }
     });
     client.on('error', (err) => {
+      // One lost connection may raise several errors; only the current client schedules a retry.
+      if (this.client !== client && this.client !== null) return;
       this.logger.warn(`Notification connection lost (${err.message}); reconnecting`);
       this.client = null;
-      if (!this.closing) setTimeout(() => void this.connect().catch(() => undefined), 1000);
+      void client.end().catch(() => undefined);
+      this.reconnectSoon();
     });
-    await client.connect();
-    await client.query('LISTEN cribra_runs');
-    await client.query('LISTEN cribra_notebooks');
+    try {
+      await client.connect();
+      await client.query('LISTEN cribra_runs');
+      await client.query('LISTEN cribra_notebooks');
+    } catch (e) {
+      void client.end().catch(() => undefined);
+      throw e;
+    }
     this.client = client;
+  }
+
+  /** Retries every second until connected: a database restart may take longer than one try. */
+  private reconnectSoon(): void {
+    if (this.closing || this.reconnecting) return;
+    this.reconnecting = true;
+    setTimeout(() => {
+      this.reconnecting = false;
+      if (this.closing || this.client) return;
+      void this.connect().catch((e: Error) => {
+        this.logger.warn(`Could not listen again (${e.message}); retrying`);
+        this.reconnectSoon();
+      });
+    }, 1000);
   }
 
   async onModuleDestroy(): Promise<void> {

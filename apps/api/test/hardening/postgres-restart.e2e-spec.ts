@@ -1,9 +1,9 @@
-// PostgreSQL restarted (pg_ctl restart -m fast: every connection is cut) while runs are queued and
+// PostgreSQL stopped for 3 s and started again (pg_ctl stop -m fast: every connection is cut) while runs are queued and
 // running: the API and the runner reconnect on their own, every run ends (succeeded, or failed
 // with a clear reason), new work is taken, and nothing committed before the restart is lost.
 import type { INestApplication } from '@nestjs/common';
 import { execFileSync } from 'node:child_process';
-import { existsSync, readdirSync } from 'node:fs';
+import { existsSync, readdirSync, readFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { Client as PgClient } from 'pg';
 import request from 'supertest';
@@ -18,6 +18,28 @@ function pgCtl(args: string[]): void {
   const bin = join(base, version!, 'bin', 'pg_ctl');
   const asRoot = process.getuid?.() === 0;
   execFileSync(asRoot ? 'runuser' : bin, asRoot ? ['-u', 'postgres', '--', bin, ...args] : args, { stdio: ['ignore', 'ignore', 'pipe'], timeout: 60_000 });
+}
+
+/** The server's own command-line options (postmaster.opts), for a start after a stop. */
+function serverOptions(dir: string): string {
+  const args = [...readFileSync(join(dir, 'postmaster.opts'), 'utf8').matchAll(/"([^"]*)"/g)].map((m) => m[1]!);
+  const out: string[] = [];
+  // The binary's path is written unquoted; the arguments are quoted.
+  for (let i = 0; i < args.length; i++) {
+    if (args[i] === '-D') i++;
+    else out.push(`'${args[i]!.replace(/'/g, `'\\''`)}'`);
+  }
+  return out.join(' ');
+}
+
+async function listeners(db: string): Promise<number> {
+  const c = new PgClient({ connectionString: process.env.DATABASE_URL });
+  await c.connect();
+  try {
+    return (await c.query(`SELECT count(*)::int AS n FROM pg_stat_activity WHERE datname = $1 AND query ILIKE 'LISTEN%'`, [db])).rows[0].n as number;
+  } finally {
+    await c.end();
+  }
 }
 
 async function dataDirectory(): Promise<string> {
@@ -60,8 +82,14 @@ describe('PostgreSQL restarted under load', () => {
     });
 
     const dir = await dataDirectory();
+    const opts = serverOptions(dir);
+    const listening = await listeners(stack.name);
+    expect(listening).toBeGreaterThanOrEqual(2); // run events and the sign-off watcher
+    // Down for 3 s: longer than one reconnection attempt of any component.
     const cut = Date.now();
-    pgCtl(['-D', dir, '-m', 'fast', '-w', '-t', '60', 'restart']);
+    pgCtl(['-D', dir, '-m', 'fast', '-w', '-t', '60', 'stop']);
+    await new Promise((r) => setTimeout(r, 3_000));
+    pgCtl(['-D', dir, '-l', join(dir, 'server.log'), '-w', '-t', '60', '-o', opts, 'start']);
     const downMs = Date.now() - cut;
 
     // The API answers again (its pool drops dead connections and opens new ones).
@@ -87,6 +115,9 @@ describe('PostgreSQL restarted under load', () => {
     const last = done[done.length - 1]!;
     if (last.status === 'succeeded') expect(last.outputs![0]).toMatchObject({ text: '6469693230' });
 
+    // The API listens for notifications again (progress events to browsers, sign-off watcher).
+    await waitFor('the LISTEN connections to return', async () => ((await listeners(stack.name)) >= listening ? true : undefined), 20_000, 250);
+
     // The runner is still alive and takes new work.
     expect(runner.exitCode).toBeNull();
     const fresh = await addCell(owner, nb.id, 'admissible({0, 2, 6, 8, 12})');
@@ -102,7 +133,7 @@ describe('PostgreSQL restarted under load', () => {
     expect(back.title).toBe('Written before the restart');
     expect(back.cells.map((c: { id: string }) => c.id)).toEqual([...cells.map((c) => c.id), fresh.id]);
     console.log(
-      `postgres restart: pg_ctl restart took ${downMs} ms; API healthy ${healthy} ms after the cut; ` +
+      `postgres restart: database down for ${downMs} ms (stop, 3 s, start); API healthy ${healthy} ms after the cut; ` +
         `${done.filter((r) => r.status === 'succeeded').length} of ${done.length} in-flight runs succeeded, ` +
         `${done.filter((r) => r.status !== 'succeeded').length} failed with a reason; runner alive`,
     );
