@@ -103,13 +103,16 @@ describe('script in notes and comments', () => {
     created.push(nb.id);
     const token = await owner.client.fetchCsrf();
     const up = await request(app.getHttpServer()).post(`/api/notebooks/${nb.id}/uploads`).set('Cookie', jarOf(owner.client)).set(CSRF_HEADER, token)
-      .field('name', 'page').attach('file', Buffer.from('h,v\n"<script>alert(1)</script>",1\n'), { filename: 'page.csv', contentType: 'text/html' });
-    expect(up.status).toBeLessThan(500);
-    if (up.status === 201) {
-      const content = await owner.client.call('get', `/api/uploads/${up.body.id}/content`);
-      expect(content.headers['content-type']).not.toMatch(/html/);
-      expect(content.headers['x-content-type-options']).toBe('nosniff');
-    }
+      .field('name', 'page').attach('file', Buffer.from('h,v\n"<script>alert(1)</script>",1\n'), { filename: 'page.csv', contentType: 'text/csv' });
+    expect(up.status).toBe(201);
+    const content = await owner.client.call('get', `/api/uploads/${up.body.id}/content`);
+    expect(content.status).toBe(200);
+    expect(content.headers['content-type']).not.toMatch(/html/);
+    expect(content.headers['x-content-type-options']).toBe('nosniff');
+    // Declared as HTML by the sender: refused, never stored to be served back as a page.
+    const asHtml = await request(app.getHttpServer()).post(`/api/notebooks/${nb.id}/uploads`).set('Cookie', jarOf(owner.client)).set(CSRF_HEADER, token)
+      .field('name', 'page2').attach('file', Buffer.from('<html><script>alert(1)</script></html>'), { filename: 'page.html', contentType: 'text/html' });
+    expect(asHtml.status).toBe(400);
   });
 });
 
