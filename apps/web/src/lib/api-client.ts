@@ -48,14 +48,16 @@ function buildUrl(path: string, query?: RequestOptions['query']): string {
 
 async function send<T>(path: string, opts: RequestOptions, csrf?: string): Promise<T> {
   const headers: Record<string, string> = { accept: 'application/json' };
-  if (opts.body !== undefined) headers['content-type'] = 'application/json';
+  // Form data (file uploads) sets its own multipart content type with the boundary.
+  const isForm = typeof FormData !== 'undefined' && opts.body instanceof FormData;
+  if (opts.body !== undefined && !isForm) headers['content-type'] = 'application/json';
   if (csrf) headers[CSRF_HEADER] = csrf;
   let res: Response;
   try {
     res = await fetch(buildUrl(path, opts.query), {
       method: opts.method ?? 'GET',
       headers,
-      body: opts.body === undefined ? undefined : JSON.stringify(opts.body),
+      body: opts.body === undefined ? undefined : isForm ? (opts.body as FormData) : JSON.stringify(opts.body),
       credentials: 'same-origin',
       signal: opts.signal,
     });

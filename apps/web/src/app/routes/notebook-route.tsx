@@ -1,7 +1,9 @@
 import { useQueryClient } from '@tanstack/react-query';
 import { CollaborationPanel } from '../../features/collaboration/components/collaboration-panel';
 import { notebookKeys } from '../../features/notebooks/api/keys';
+import { canEditCells } from '../../features/notebooks/lib/permissions';
 import NotebookPage from '../../features/notebooks/pages/notebook-page';
+import { UploadsSection } from '../../features/uploads/components/uploads-section';
 import { useCurrentUser } from '../../lib/current-user';
 
 /** The notebook page with the collaboration panel beside it (the route composes the two features). */
@@ -15,6 +17,13 @@ export default function NotebookRoute() {
           notebook={nb}
           userId={me.data?.id}
           siteRole={me.data?.siteRole}
+          extraTabs={[
+            {
+              value: 'files',
+              label: 'Files',
+              content: <UploadsSection notebookId={nb.id} canEdit={canEditCells({ myRole: nb.myRole, status: nb.status, siteRole: me.data?.siteRole })} />,
+            },
+          ]}
           onNotebookChanged={() => {
             void qc.invalidateQueries({ queryKey: notebookKeys.detail(nb.id) });
             void qc.invalidateQueries({ queryKey: notebookKeys.lists() });
