@@ -1,6 +1,7 @@
 import type { NotebookView, SiteRole } from '@cribra/contracts';
 import { Box, Paper, Tab, Tabs } from '@mui/material';
 import { type ReactNode, useState } from 'react';
+import { CommentsSection } from './comments-section';
 import { MembersSection } from './members-section';
 import { ReviewSection } from './review-section';
 
@@ -20,9 +21,10 @@ export function CollaborationPanel({ notebook, userId, siteRole, onNotebookChang
   const extra = extraTabs.find((t) => t.value === tab);
   return (
     <Paper sx={{ maxHeight: 'calc(100vh - 80px)', overflowY: 'auto' }}>
-      <Tabs value={tab} onChange={(_, t) => setTab(t)} variant="fullWidth" aria-label="Collaboration">
+      <Tabs value={tab} onChange={(_, t) => setTab(t)} variant="fullWidth" aria-label="Collaboration" sx={{ '& .MuiTab-root': { minWidth: 0, px: 1 } }}>
         <Tab value="review" label="Review" id="collab-tab-review" aria-controls="collab-panel-review" />
         <Tab value="members" label="Members" id="collab-tab-members" aria-controls="collab-panel-members" />
+        <Tab value="comments" label="Comments" id="collab-tab-comments" aria-controls="collab-panel-comments" />
         {extraTabs.map((t) => (
           <Tab key={t.value} value={t.value} label={t.label} id={`collab-tab-${t.value}`} aria-controls={`collab-panel-${t.value}`} />
         ))}
@@ -30,6 +32,9 @@ export function CollaborationPanel({ notebook, userId, siteRole, onNotebookChang
       <Box role="tabpanel" id={`collab-panel-${tab}`} aria-labelledby={`collab-tab-${tab}`} sx={{ p: 2 }}>
         {tab === 'review' && <ReviewSection notebook={notebook} userId={userId} siteRole={siteRole} onChanged={onNotebookChanged} />}
         {tab === 'members' && <MembersSection notebook={notebook} canManage={notebook.myRole === 'owner' || siteRole === 'admin'} />}
+        {tab === 'comments' && (
+          <CommentsSection notebook={notebook} canWrite={notebook.status !== 'locked' && (['owner', 'editor', 'reviewer'] as const).some((r) => r === notebook.myRole)} />
+        )}
         {extra?.content}
       </Box>
     </Paper>
