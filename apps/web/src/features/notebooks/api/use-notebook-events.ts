@@ -24,7 +24,9 @@ export function useNotebookEvents(notebookId: string): void {
             : c,
         ),
       );
-      if (!ACTIVE_RUN_STATUSES.includes(r.status)) void getRun(r.id).then((run) => putCachedRun(qc, run));
+      const known = qc.getQueryData<NotebookView>(notebookKeys.detail(notebookId))?.cells.some((c) => c.latestRun?.id === r.id);
+      // A finished run brings its outputs; a run started elsewhere (another member) is fetched once.
+      if (!ACTIVE_RUN_STATUSES.includes(r.status) || !known) void getRun(r.id).then((run) => putCachedRun(qc, run)).catch(() => undefined);
     };
     const onNotebook = (msg: MessageEvent<string>) => {
       const event = JSON.parse(msg.data) as Extract<NotebookEvent, { type: 'notebook' }>;

@@ -23,12 +23,18 @@ export function NotebookHeader({ notebook: nb, canRun, runningAll, onRunAll, act
             {runningAll ? 'Queuing…' : 'Run all'}
           </Button>
         )}
+        <Button variant="outlined" href={`/api/notebooks/${nb.id}/export?format=markdown`} download>Export Markdown</Button>
+        <Button variant="outlined" href={`/api/notebooks/${nb.id}/export?format=latex`} download>Export LaTeX</Button>
         {actions}
       </Box>
       {nb.summary && <Typography sx={{ mt: 1, maxWidth: 900 }}>{nb.summary}</Typography>}
       <Typography variant="caption" color="text.secondary" component="p" className="mono" sx={{ mt: 0.5 }}>
         rev {nb.revision} · owner {nb.owner.displayName} · my role {nb.myRole ?? 'none (admin)'} · updated {formatDateTime(nb.updatedAt)}
         {nb.tags.length > 0 && ` · ${nb.tags.join(', ')}`}
+      </Typography>
+      <Typography variant="caption" color="text.secondary" component="p">
+        In a cell: <kbd>Ctrl</kbd>+<kbd>Enter</kbd> runs it · <kbd>Ctrl</kbd>+<kbd>S</kbd> saves · <kbd>Ctrl</kbd>+<kbd>Alt</kbd>+<kbd>N</kbd> adds a query below ·
+        {' '}<kbd>Ctrl</kbd>+<kbd>M</kbd> lets <kbd>Tab</kbd> leave the editor
       </Typography>
     </Box>
   );
