@@ -1,12 +1,12 @@
 import { isSmallPrime } from '../primes/small-primes';
 import type { CompiledPattern } from './pattern';
 import { LargePrimes } from './buckets';
-import { clearOutside, countPattern, firstBitValue, lastBitValue } from './count';
+import { clearOutside, countPattern, countPrimesAndTwins, firstBitValue, lastBitValue } from './count';
 import { activate, crossLookahead, crossRange } from './cross';
 import { L1_BYTES, LARGE_PRIME_BOUND, SEGMENT_BYTES, SMALL_PRIME_BOUND } from './layout';
 import { PRESIEVE_PERIOD, presievePattern } from './presieve';
 import { LAST_PATTERN_PRIME, PATTERN_PRIMES, PATTERN_PRIMES_BYTES, applyWordPatterns } from './presieve-words';
-import { RESIDUE_BIT, WORD_BIT_VALUE, popcount32 } from './wheel30';
+import { RESIDUE_BIT, WORD_BIT_VALUE, popcountWords } from './wheel30';
 
 export { SEGMENT_BYTES } from './layout';
 
@@ -103,6 +103,7 @@ export function sieveCore(
   });
   if (b < 7) return finish();
 
+  const twinIndex = patterns.findIndex((cp) => cp.twin); // counted in the same pass as π
   let maxByteOffset = 0;
   for (const cp of patterns) maxByteOffset = Math.max(maxByteOffset, cp.maxByteOffset);
   // Bytes sieved beyond each segment so that occurrences starting in it can be read whole.
@@ -167,7 +168,8 @@ export function sieveCore(
     // Primes of this segment: start bytes [0, len).
     const words = len >> 2;
     let segCount = 0;
-    for (let w = 0; w < words; w++) segCount += popcount32(u32[w]!);
+    if (twinIndex >= 0) segCount = countPrimesAndTwins(u32, words, base, pat[twinIndex]!);
+    else segCount = popcountWords(u32, words);
     if (segCount > 0) {
       primeCount += segCount;
       if (firstPrime < 0) firstPrime = base + firstBitValue(u32, 0, words);
@@ -193,7 +195,7 @@ export function sieveCore(
         }
       }
     }
-    for (let i = 0; i < patterns.length; i++) countPattern(u32, words, base, patterns[i]!, pat[i]!);
+    for (let i = 0; i < patterns.length; i++) if (i !== twinIndex) countPattern(u32, words, base, patterns[i]!, pat[i]!);
     done += len;
   }
   return finish();

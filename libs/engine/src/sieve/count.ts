@@ -35,6 +35,61 @@ export function lastBitValue(u32: Uint32Array, words: number): number {
   return -1;
 }
 
+/** The twin-prime start bits of word w (starts 11, 17 at bits 2, 4 of a byte; 29 at bit 7). */
+const twinBits = (u32: Uint32Array, w: number): number => {
+  const P = u32[w]!;
+  // 11 and 17 pair with the next bit of their byte; 29 with bit 0 of the next byte, which is the
+  // next bit of the word except at bit 31.
+  return P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494;
+};
+
+/**
+ * One pass over the words [0, words) counting the primes and the twin pairs that start there
+ * (the first and last twin are located afterwards, so the loop has no bookkeeping). Returns the
+ * number of primes; adds the twins to `twins`.
+ */
+export function countPrimesAndTwins(u32: Uint32Array, words: number, base: number, twins: CorePatternResult): number {
+  let primes = 0;
+  let count = 0;
+  // Three words at a time: their nibble counts (≤ 4 each) add up to ≤ 12 before one reduction.
+  let w = 0;
+  for (; w + 3 <= words; w += 3) {
+    const P0 = u32[w]!, P1 = u32[w + 1]!, P2 = u32[w + 2]!, P3 = u32[w + 3]!;
+    let a = P0 - ((P0 >>> 1) & 0x55555555);
+    let b = P1 - ((P1 >>> 1) & 0x55555555);
+    let c = P2 - ((P2 >>> 1) & 0x55555555);
+    a = (a & 0x33333333) + ((a >>> 2) & 0x33333333);
+    b = (b & 0x33333333) + ((b >>> 2) & 0x33333333);
+    c = (c & 0x33333333) + ((c >>> 2) & 0x33333333);
+    let s = a + b + c;
+    s = (s & 0x0f0f0f0f) + ((s >>> 4) & 0x0f0f0f0f);
+    primes += Math.imul(s, 0x01010101) >>> 24;
+    const o0 = P0 & ((P0 >>> 1) | (P1 << 31)) & 0x94949494;
+    const o1 = P1 & ((P1 >>> 1) | (P2 << 31)) & 0x94949494;
+    const o2 = P2 & ((P2 >>> 1) | (P3 << 31)) & 0x94949494;
+    if ((o0 | o1 | o2) !== 0) count += popcount32(o0) + popcount32(o1) + popcount32(o2);
+  }
+  for (; w < words; w++) {
+    const P = u32[w]!;
+    primes += popcount32(P);
+    const occ = P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494;
+    if (occ !== 0) count += popcount32(occ);
+  }
+  if (count > 0) {
+    twins.count += count;
+    if (twins.first < 0) {
+      w = 0;
+      while (twinBits(u32, w) === 0) w++;
+      const occ = twinBits(u32, w);
+      twins.first = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(occ & -occ)]!;
+    }
+    w = words - 1;
+    while (twinBits(u32, w) === 0) w--;
+    twins.last = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(twinBits(u32, w))]!;
+  }
+  return primes;
+}
+
 /**
  * Counts the occurrences of one pattern whose start n lies in the bytes [0, 4·words) of the segment,
  * and updates its first/last occurrence. Occurrence bits are built per 32-bit word: bit c of each
