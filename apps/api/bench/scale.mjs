@@ -5,8 +5,8 @@
 // own API process. Prints both wall times, the speed-up and whether the combined results are equal.
 // Each runner has one slot, so "two runners" means two processes sharing the queue.
 import { spawn } from 'node:child_process';
-import { chmodSync, mkdtempSync, rmSync } from 'node:fs';
-import { tmpdir } from 'node:os';
+import { chmodSync, mkdtempSync, readFileSync, rmSync } from 'node:fs';
+import { loadavg, tmpdir } from 'node:os';
 import { join } from 'node:path';
 import { ROOT } from '../../launcher/common.mjs';
 import { cluster, ensurePostgresBinaries } from '../../launcher/postgres.mjs';
@@ -67,6 +67,16 @@ function mathOnly(v) {
   return v;
 }
 
+/** CPU seconds (user + system) a live process has used so far (Linux /proc; 0 elsewhere). */
+function cpuSeconds(pid) {
+  try {
+    const fields = readFileSync(`/proc/${pid}/stat`, 'utf8').split(') ')[1].split(' ');
+    return (Number(fields[11]) + Number(fields[12])) / 100;
+  } catch {
+    return 0;
+  }
+}
+
 async function computeWith(pg, runners, apiPort) {
   const db = `cribra_scale_${runners}_${Date.now().toString(36)}`;
   pg.createDatabase(db);
@@ -100,10 +110,11 @@ async function computeWith(pg, runners, apiPort) {
   const seconds = (Date.now() - started) / 1000;
   const range = (await c.call('GET', `/api/ledger/range?from=0&to=${LEDGER_TO}`)).body;
   const wheel = (await c.call('GET', `/api/levels/${LEVEL}`)).body;
-  const shares = await Promise.all(procs.map(async (_, i) => `scale-${runners}-${i + 1}`));
+  const cpu = procs.map((p) => cpuSeconds(p.pid));
+  const load = loadavg()[1];
   for (const p of procs) await stop(p);
   await stop(api);
-  return { seconds, finished, range, wheel, shares };
+  return { seconds, finished, range, wheel, cpu, load };
 }
 
 async function main() {
@@ -122,6 +133,9 @@ async function main() {
     console.log('| work | one runner | two runners | speed-up |');
     console.log('|---|--:|--:|--:|');
     console.log(`| ledger 0..${LEDGER_TO} (${one.finished.ledger.chunks} blocks) + level ${LEVEL}# (${one.finished.level.chunks} chunks), both queued at once | ${one.seconds.toFixed(1)} s | ${two.seconds.toFixed(1)} s | ${(one.seconds / two.seconds).toFixed(2)}× |`);
+    const cpuLine = (r) => `${r.cpu.map((x) => x.toFixed(1)).join(' + ')} s CPU → ${(r.cpu.reduce((a, b) => a + b, 0) / r.seconds).toFixed(2)} cores busy on average, load average ${r.load.toFixed(1)}`;
+    console.log(`one runner: ${cpuLine(one)}; two runners: ${cpuLine(two)}`);
+    console.log('(on a machine shared with other work the speed-up follows the cores the runners actually got, shown as "cores busy")');
     console.log(`π(${LEDGER_TO}) = ${one.range.primeCount}; twins ${one.range.constellations?.twin}; largest gap ${JSON.stringify(one.range.largestGap)}; level ${LEVEL}# largest gap ${one.wheel.largestGap}`);
     console.log(`combined results of one and two runners equal: ${same ? 'yes' : 'NO'}`);
     if (!same) process.exitCode = 1;
