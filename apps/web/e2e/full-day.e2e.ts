@@ -126,7 +126,7 @@ describe('a whole day in Cribra', () => {
     await dialog.waitFor();
     expect(await dialog.innerText()).toMatch(/Computed evidence is not a proof/);
     expect(await dialog.innerText()).toContain('Visiting Referee');
-    await saveScreenshot(owner, 'lock-dialog');
+    await saveScreenshot(owner, 'lock-dialog', { fullPage: false });
     await dialog.getByRole('button', { name: 'Lock notebook' }).click();
     await owner.getByText(/This notebook is locked/).waitFor();
     await owner.getByRole('region', { name: 'Lock record' }).waitFor();
@@ -153,6 +153,11 @@ describe('a whole day in Cribra', () => {
   it('shows the stored data', async () => {
     await owner.getByRole('link', { name: 'Data' }).click();
     await owner.getByRole('heading', { name: 'Data' }).waitFor();
+    await owner.getByRole('button', { name: 'Show level 13' }).click();
+    const level = owner.getByRole('region', { name: 'Level 13' });
+    await level.getByRole('img', { name: /Gaps between consecutive members of 13#/ }).waitFor();
+    // φ(13#) = 5760 (OEIS A005867); the largest gap of the 13# wheel is 22 (OEIS A048670).
+    expect(await level.innerText()).toMatch(/φ = 5\u2009760 · largest gap 22/);
     await saveScreenshot(owner, 'data');
   });
 

@@ -5,8 +5,13 @@ import { repoRoot } from './env';
 
 const dir = join(repoRoot, 'docs/screenshots');
 
-/** Saves a PNG of the page as docs/screenshots/<name>.png (1280-wide viewport set by the test). */
-export async function saveScreenshot(page: Page, name: string): Promise<void> {
+/**
+ * Saves a PNG of the page as docs/screenshots/<name>.png (1280-wide viewport set by the test).
+ * Whole page by default; `fullPage: false` for dialogs, whose backdrop covers only the viewport.
+ */
+export async function saveScreenshot(page: Page, name: string, { fullPage = true } = {}): Promise<void> {
   mkdirSync(dir, { recursive: true });
-  await page.screenshot({ path: join(dir, `${name}.png`), fullPage: true });
+  // Let field labels and transitions settle before the picture.
+  await page.waitForTimeout(300);
+  await page.screenshot({ path: join(dir, `${name}.png`), fullPage });
 }

@@ -24,7 +24,8 @@ export function chartFigure(spec: ChartOutput) {
     separatethousands: true,
   });
   const layout = {
-    title: spec.title ? { text: spec.title, font: { size: 14 } } : undefined,
+    // Title at the left: the tool bar Plotly shows on hover sits at the top right.
+    title: spec.title ? { text: spec.title, font: { size: 14 }, x: 0.01, xanchor: 'left' } : undefined,
     xaxis: axis(spec.x),
     yaxis: axis(spec.y),
     paper_bgcolor: palette.sheet,
