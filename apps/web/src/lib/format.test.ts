@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { groupDigits } from './format';
+import { groupDigits, groupNumbersInText } from './format';
 
 describe('groupDigits', () => {
   it.each([
@@ -22,5 +22,16 @@ describe('groupDigits', () => {
 
   it('leaves text that is not a number alone', () => {
     expect(groupDigits('n/a')).toBe('n/a');
+  });
+});
+
+describe('groupNumbersInText', () => {
+  it('groups integers from the right and fractions from the point', () => {
+    // S({0, 2}) = 2·C2 ≈ 1.3203236316937391478 (twin prime constant C2, OEIS A005597) (from memory)
+    expect(groupNumbersInText('1.3203236316937', ' ')).toBe('1.320 323 631 693 7');
+    expect(groupNumbersInText('(count: 1393, first: 5, last: 999431)', ' ')).toBe('(count: 1 393, first: 5, last: 999 431)');
+  });
+  it('leaves digits inside names and short numbers alone', () => {
+    expect(groupNumbersInText('p2 + x1000 = 12.5', ' ')).toBe('p2 + x1000 = 12.5');
   });
 });

@@ -19,3 +19,17 @@ export function formatDateTime(iso: string): string {
   const d = new Date(iso);
   return Number.isNaN(d.getTime()) ? iso : d.toLocaleString(undefined, { dateStyle: 'medium', timeStyle: 'short' });
 }
+
+/**
+ * Groups every number written in a text: integer parts of four or more digits by threes from the
+ * right, decimal fractions of four or more digits by threes from the point. Digits inside names
+ * (`p2`, `x10`) are left alone.
+ */
+export function groupNumbersInText(text: string, sep = DIGIT_GROUP_SEPARATOR): string {
+  return text.replace(/(?<![\w.])(\d+)(?:\.(\d+))?(?![\w])/g, (_m, int: string, frac: string | undefined) => {
+    const i = int.length >= 4 ? groupDigits(int, sep) : int;
+    if (frac === undefined) return i;
+    const f = frac.length >= 4 ? frac.replace(/(\d{3})(?=\d)/g, `$1${sep}`) : frac;
+    return `${i}.${f}`;
+  });
+}

@@ -22,6 +22,8 @@ export function chartFigure(spec: ChartOutput) {
     zerolinecolor: palette.rule,
     tickfont: { family: monoFont, size: 11 },
     separatethousands: true,
+    // Log axes read 10², 10³… rather than SI suffixes (1k, 1M), which are not the field's notation.
+    exponentformat: a.log ? 'power' : 'none',
   });
   const layout = {
     // Title at the left: the tool bar Plotly shows on hover sits at the top right.

@@ -1,5 +1,5 @@
 import { Box, Typography } from '@mui/material';
-import { groupDigits } from '../../lib/format';
+import { groupNumbersInText } from '../../lib/format';
 import { monoFont } from '../../lib/design-tokens';
 import type { ValueOutput } from '../../lib/sift-output';
 import { valueText } from '../../lib/value-text';
@@ -9,7 +9,7 @@ import { OutputLabel } from './output-label';
 /** The display text: the exact `text` of the run, with integer digits grouped. */
 function displayText(output: ValueOutput): string {
   if (output.value.t === 'int' || output.value.t === 'rat') return valueText(output.value);
-  return output.text.replace(/-?\d{5,}/g, (digits) => groupDigits(digits));
+  return groupNumbersInText(output.text);
 }
 
 export function ValueOutputView({ output }: { output: ValueOutput }) {

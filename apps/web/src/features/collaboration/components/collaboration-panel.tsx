@@ -31,7 +31,7 @@ export function CollaborationPanel({ notebook, userId, siteRole, onNotebookChang
       </Tabs>
       <Box role="tabpanel" id={`collab-panel-${tab}`} aria-labelledby={`collab-tab-${tab}`} sx={{ p: 2 }}>
         {tab === 'review' && <ReviewSection notebook={notebook} userId={userId} siteRole={siteRole} onChanged={onNotebookChanged} />}
-        {tab === 'members' && <MembersSection notebook={notebook} canManage={notebook.myRole === 'owner' || siteRole === 'admin'} />}
+        {tab === 'members' && <MembersSection notebook={notebook} canManage={notebook.myRole === 'owner' || siteRole === 'admin'} onChanged={onNotebookChanged} />}
         {tab === 'comments' && (
           <CommentsSection notebook={notebook} canWrite={notebook.status !== 'locked' && (['owner', 'editor', 'reviewer'] as const).some((r) => r === notebook.myRole)} />
         )}

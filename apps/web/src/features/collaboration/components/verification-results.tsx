@@ -1,5 +1,7 @@
 import type { VerificationCellStatus, VerificationView } from '@cribra/contracts';
-import { Alert, Box, Chip, LinearProgress, Table, TableBody, TableCell, TableHead, TableRow, Typography } from '@mui/material';
+import { Alert, Box, Chip, LinearProgress, Stack, Table, TableBody, TableCell, TableHead, TableRow, Typography } from '@mui/material';
+import { Fragment } from 'react';
+import { OutputView } from '../../../components/outputs/output-view';
 
 const COLOUR: Record<VerificationCellStatus, 'default' | 'success' | 'error' | 'warning'> = {
   pending: 'default',
@@ -32,7 +34,8 @@ export function VerificationResults({ verification: v }: { verification: Verific
         </TableHead>
         <TableBody>
           {v.cells.map((c) => (
-            <TableRow key={c.cellId}>
+            <Fragment key={c.cellId}>
+            <TableRow>
               <TableCell className="mono">{c.position + 1} {c.kind}</TableCell>
               <TableCell>
                 <Chip size="small" label={c.status} color={COLOUR[c.status]} />
@@ -43,6 +46,22 @@ export function VerificationResults({ verification: v }: { verification: Verific
                 {c.recordedDigest?.slice(0, 10) ?? '—'}{c.newDigest && c.newDigest !== c.recordedDigest ? ` → ${c.newDigest.slice(0, 10)}` : ''}
               </TableCell>
             </TableRow>
+            {c.status === 'differs' && (c.recordedOutputs || c.newOutputs) && (
+              <TableRow>
+                <TableCell colSpan={3}>
+                  <Box component="details">
+                    <summary>Both outputs of cell {c.position + 1}</summary>
+                    <Stack spacing={1} sx={{ mt: 1 }}>
+                      <Typography variant="caption">Recorded</Typography>
+                      {(c.recordedOutputs ?? []).map((o, i) => <OutputView key={`r${i}`} output={o} />)}
+                      <Typography variant="caption">Re-run</Typography>
+                      {(c.newOutputs ?? []).map((o, i) => <OutputView key={`n${i}`} output={o} />)}
+                    </Stack>
+                  </Box>
+                </TableCell>
+              </TableRow>
+            )}
+            </Fragment>
           ))}
         </TableBody>
       </Table>
