@@ -1,1 +1,2 @@
 export * from './small-primes';
+export * from './is-prime';

@@ -1,4 +1,4 @@
-import { admissibility, coveredResidues, isAdmissible, normalizeTuple, occupancy, tupleDiameter } from '@cribra/engine';
+import { admissibility, coveredResidues, isAdmissible, isSmallPrime, normalizeTuple, occupancy, tupleDiameter } from '@cribra/engine';
 import { domainError } from '../errors';
 import { SiftRecord, Table, Tuple } from '../values/types';
 import { argSmall, argTuple, type Builtin, defineBuiltins } from './registry';
@@ -62,7 +62,7 @@ const tuples: Builtin[] = [
       if (a.length === 2) return BigInt(occupancy(h, argSmall(a, 1, c, 'occupancy', 2, 2 ** 31 - 1)));
       const rows: bigint[][] = [];
       for (let q = 2; q <= Math.max(2, h.length); q++) {
-        if (!isPrimeSmall(q)) continue;
+        if (!isSmallPrime(q)) continue;
         c.tick();
         const nu = occupancy(h, q);
         rows.push([BigInt(q), BigInt(nu), BigInt(q - nu)]);
@@ -97,12 +97,6 @@ const tuples: Builtin[] = [
 
 function witnessTable(w: Readonly<Record<number, number>>): Table {
   return new Table(['prime', 'residue'], Object.keys(w).map(Number).sort((x, y) => x - y).map((q) => [BigInt(q), BigInt(w[q]!)]));
-}
-
-function isPrimeSmall(n: number): boolean {
-  if (n < 2) return false;
-  for (let d = 2; d * d <= n; d++) if (n % d === 0) return false;
-  return true;
 }
 
 defineBuiltins(tuples);

@@ -50,46 +50,8 @@ export function forEachPrime(lo: bigint, hi: bigint, span: SourceSpan, visit: (p
   }
 }
 
-const MR_BASES = [2n, 3n, 5n, 7n, 11n, 13n, 17n, 19n, 23n, 29n, 31n, 37n, 41n];
-
-function powMod(b: bigint, e: bigint, m: bigint): bigint {
-  let r = 1n;
-  b %= m;
-  while (e > 0n) {
-    if (e & 1n) r = (r * b) % m;
-    b = (b * b) % m;
-    e >>= 1n;
-  }
-  return r;
-}
-
-/**
- * Primality: Miller–Rabin with the first 13 prime bases, which is a proof below 3.3·10^24
- * (Sorenson–Webster 2015); above that it is a strong probable-prime test.
- */
-export function isPrime(n: bigint): boolean {
-  if (n < 2n) return false;
-  for (const p of MR_BASES) {
-    if (n === p) return true;
-    if (n % p === 0n) return false;
-  }
-  let d = n - 1n;
-  let s = 0;
-  while ((d & 1n) === 0n) {
-    d >>= 1n;
-    s++;
-  }
-  outer: for (const a of MR_BASES) {
-    let x = powMod(a, d, n);
-    if (x === 1n || x === n - 1n) continue;
-    for (let i = 1; i < s; i++) {
-      x = (x * x) % n;
-      if (x === n - 1n) continue outer;
-    }
-    return false;
-  }
-  return true;
-}
+// Primality of single values is the engine's (Miller–Rabin, a proof below 3.3·10^24).
+export { isPrime } from '@cribra/engine';
 
 /** Rough upper bound of the number of primes in [lo, hi] (for size checks before enumerating). */
 export function primeCountBound(lo: bigint, hi: bigint): number {
