@@ -16,8 +16,8 @@ describe('exact arithmetic', () => {
     ['0.1 + 0.2', '3/10'],
     ['1.5e3', '1500'],
     ['real(1)/3', '0.3333333333333333'],
-    ['13#', '30030'],
-    ['10!', '3628800'],
+    ['13#', '30030'], // 13# = 30030 (OEIS A002110)
+    ['10!', '3628800'], // 10! (OEIS A000142)
     ['2 < 3 < 4', 'true'],
     ['2 < 3 > 4', 'false'],
     ['1/3 = 2/6', 'true'],
@@ -49,7 +49,7 @@ describe('collections, comprehensions and functions', () => {
   });
 
   it('evaluates big operators exactly', () => {
-    expect(value('∑[n ∈ 1..10] 1/n')).toBe('7381/2520');
+    expect(value('∑[n ∈ 1..10] 1/n')).toBe('7381/2520'); // H_10: numerator OEIS A001008, denominator A002805
     expect(value('∏[q ∈ primes 5..11](q − 2)')).toBe('135');
     expect(value('#[p ∈ primes 1..100] p mod 4 = 1')).toBe('11');
     expect(value('∀[p ∈ primes 3..100] p mod 2 = 1')).toBe('true');
@@ -170,7 +170,7 @@ describe('display directives', () => {
   it('show gives a labelled value with exact digits; strings become text', () => {
     expect(run('show 2^100 as "big"').outputs[0]).toEqual({ kind: 'value', label: 'big', value: { t: 'int', v: '1267650600228229401496703205376' }, text: '1267650600228229401496703205376' });
     expect(run('"hello"').outputs[0]).toEqual({ kind: 'text', text: 'hello' });
-    expect(run('show sqrt(2) digits 5').outputs[0]).toMatchObject({ text: '1.4142' });
+    expect(run('show sqrt(2) digits 5').outputs[0]).toMatchObject({ text: '1.4142' }); // √2 = 1.41421… (OEIS A002193)
   });
 
   it('draw gives a chart specification with series, axes and log scales', () => {
