@@ -661,7 +661,9 @@ export function asSiftError(err: unknown, span: SourceSpan, fn?: string): unknow
     return new SiftError(kind, fn && !err.message.startsWith(fn) ? `${fn}: ${err.message}` : err.message, span);
   }
   if (err instanceof RangeError && /call stack|Maximum|Invalid array length|BigInt/i.test(err.message)) {
-    return limitError(`${fn ? `${fn}: ` : ''}${err.message}`, span);
+    // Name the cause in the cell's terms, not the JavaScript engine's ("Maximum call stack size exceeded").
+    const what = /call stack/i.test(err.message) ? 'the expression nests too deeply' : err.message;
+    return limitError(`${fn ? `${fn}: ` : ''}${what}`, span);
   }
   return err;
 }
