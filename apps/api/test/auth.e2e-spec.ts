@@ -78,6 +78,18 @@ describe('auth: sign-up, sign-in, sign-out, me, password change', () => {
     expect(me.body).toMatchObject({ statusCode: 401, error: 'Unauthorized', message: expect.any(String) });
   });
 
+  it('changes the display name of the signed-in user; an empty name is a 400', async () => {
+    const { client } = await newMember(app);
+    const ok = await client.call('patch', '/api/auth/me', { displayName: '  Ida Renamed  ' });
+    expect(ok.status).toBe(200);
+    expect(ok.body.displayName).toBe('Ida Renamed');
+    expect((await client.call('get', '/api/auth/me')).body.displayName).toBe('Ida Renamed');
+    const empty = await client.call('patch', '/api/auth/me', { displayName: '   ' });
+    expect(empty.status).toBe(400);
+    expect(empty.body.details[0].field).toBe('displayName');
+    expect((await new Client(app).call('patch', '/api/auth/me', { displayName: 'Nobody' })).status).toBe(401);
+  });
+
   it('changes the password only with the current one', async () => {
     const { client, email } = await newMember(app);
     const wrong = await client.call('post', '/api/auth/password', { currentPassword: 'nope-nope-nope', newPassword: 'another-pass-9' });

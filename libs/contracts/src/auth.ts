@@ -16,6 +16,7 @@ export interface UserView {
  *   POST /api/auth/signin   SignInBody  → 200 UserView         (401 wrong credentials, 429 rate limit)
  *   POST /api/auth/signout              → 204
  *   GET  /api/auth/me                   → 200 UserView | 401
+ *   PATCH /api/auth/me     UpdateProfileBody → 200 UserView
  *   POST /api/auth/password ChangePasswordBody → 204
  *   POST /api/auth/reset/request ResetRequestBody → 202 (always, whether or not the address exists)
  *   POST /api/auth/reset/confirm ResetConfirmBody → 204
@@ -42,6 +43,9 @@ export interface SignUpBody {
 export interface SignInBody {
   email: string;
   password: string;
+}
+export interface UpdateProfileBody {
+  displayName: string;
 }
 export interface ChangePasswordBody {
   currentPassword: string;

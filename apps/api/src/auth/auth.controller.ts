@@ -1,4 +1,4 @@
-import { Body, Controller, Get, HttpCode, Post, Req, Res, UseGuards } from '@nestjs/common';
+import { Body, Controller, Get, HttpCode, Patch, Post, Req, Res, UseGuards } from '@nestjs/common';
 import { ApiTags } from '@nestjs/swagger';
 import type { Request, Response } from 'express';
 import type { UserView } from '@cribra/contracts';
@@ -7,12 +7,14 @@ import { SignedInGuard } from '../common/guards/signed-in.guard';
 import { Csrf } from '../common/middleware/csrf';
 import type { UserEntity } from '../users/user.entity';
 import { toUserView } from '../users/user-view';
+import { UsersService } from '../users/users.service';
 import { AuthService } from './auth.service';
 import { ChangePasswordDto } from './dto/change-password.dto';
 import { ResetConfirmDto } from './dto/reset-confirm.dto';
 import { ResetRequestDto } from './dto/reset-request.dto';
 import { SignInDto } from './dto/sign-in.dto';
 import { SignUpDto } from './dto/sign-up.dto';
+import { UpdateProfileDto } from './dto/update-profile.dto';
 import { LocalAuthGuard } from './local-auth.guard';
 import { endSession, SESSION_COOKIE, startSession } from './session';
 import { SignInThrottlerGuard } from './sign-in-throttler.guard';
@@ -23,6 +25,7 @@ export class AuthController {
   constructor(
     private readonly auth: AuthService,
     private readonly csrf: Csrf,
+    private readonly users: UsersService,
   ) {}
 
   @Get('csrf')
@@ -57,6 +60,12 @@ export class AuthController {
   @UseGuards(SignedInGuard)
   me(@CurrentUser() user: UserEntity): UserView {
     return toUserView(user);
+  }
+
+  @Patch('me')
+  @UseGuards(SignedInGuard)
+  async updateProfile(@CurrentUser() user: UserEntity, @Body() dto: UpdateProfileDto): Promise<UserView> {
+    return toUserView(await this.users.updateDisplayName(user.id, dto.displayName));
   }
 
   @Post('password')

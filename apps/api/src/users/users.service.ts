@@ -66,6 +66,13 @@ export class UsersService {
     await this.users.update({ id: userId }, { passwordHash: await hashPassword(password) });
   }
 
+  /** @throws NotFoundException for an unknown id. */
+  async updateDisplayName(userId: string, displayName: string): Promise<UserEntity> {
+    const result = await this.users.update({ id: userId }, { displayName: displayName.trim() });
+    if (!result.affected) throw new NotFoundException('No user with this id');
+    return (await this.findById(userId))!;
+  }
+
   /** @throws NotFoundException for an unknown id; ConflictException when it would remove the last admin. */
   async setRole(userId: string, siteRole: SiteRole): Promise<UserEntity> {
     const user = await this.findById(userId);

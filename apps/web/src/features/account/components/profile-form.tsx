@@ -1,7 +1,7 @@
 import type { UserView } from '@cribra/contracts';
 import { Alert, Button, Stack, TextField } from '@mui/material';
 import { type FormEvent, useState } from 'react';
-import { ApiRequestError, errorMessage } from '../../../lib/api-error';
+import { errorMessage } from '../../../lib/api-error';
 import { requiredProblem } from '../../../lib/validation';
 import { useUpdateProfile } from '../api/update-profile';
 
@@ -17,7 +17,6 @@ export function ProfileForm({ user }: { user: UserView }) {
     setProblem(found);
     if (!found) update.mutate({ displayName: displayName.trim() });
   };
-  const notAvailable = update.error instanceof ApiRequestError && update.error.statusCode === 404;
 
   return (
     <Stack component="form" noValidate onSubmit={submit} spacing={2} aria-label="Profile">
@@ -25,9 +24,7 @@ export function ProfileForm({ user }: { user: UserView }) {
       <TextField label="Display name" value={displayName} onChange={(e) => setDisplayName(e.target.value)}
         error={!!problem} helperText={problem ?? 'Shown beside your cells, comments and sign-offs.'} />
       {update.isSuccess && unchanged && <Alert severity="success" role="status">Display name saved.</Alert>}
-      {update.isError && (
-        <Alert severity="error">{notAvailable ? 'Changing the display name is not available on this server yet.' : errorMessage(update.error)}</Alert>
-      )}
+      {update.isError && <Alert severity="error">{errorMessage(update.error)}</Alert>}
       <div>
         <Button type="submit" variant="contained" disabled={unchanged || update.isPending}>Save display name</Button>
       </div>
