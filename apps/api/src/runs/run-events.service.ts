@@ -1,9 +1,10 @@
 import { Inject, Injectable, Logger, OnModuleDestroy, OnModuleInit } from '@nestjs/common';
 import type { ConfigType } from '@nestjs/config';
-import { Client } from 'pg';
+import type { Notification } from 'pg';
 import { Observable, Subject, filter, interval, map, merge } from 'rxjs';
 import type { NotebookEvent, RunProgressEvent } from '@cribra/contracts';
 import { appConfig } from '../config/app.config';
+import { PgListener } from '../database/pg-listener';
 
 /** Shape Nest's @Sse() expects. */
 export interface SseMessage {
@@ -20,65 +21,30 @@ export interface SseMessage {
 export class RunEventsService implements OnModuleInit, OnModuleDestroy {
   private readonly logger = new Logger('RunEvents');
   private readonly events = new Subject<NotebookEvent>();
-  private client: Client | null = null;
-  private closing = false;
-  private reconnecting = false;
+  private readonly listener: PgListener;
 
-  constructor(@Inject(appConfig.KEY) private readonly cfg: ConfigType<typeof appConfig>) {}
+  constructor(@Inject(appConfig.KEY) cfg: ConfigType<typeof appConfig>) {
+    this.listener = new PgListener(cfg.databaseUrl, ['cribra_runs', 'cribra_notebooks'], (msg) => this.heard(msg), this.logger);
+  }
 
   async onModuleInit(): Promise<void> {
-    await this.connect();
+    await this.listener.start();
   }
 
-  private async connect(): Promise<void> {
-    const client = new Client({ connectionString: this.cfg.databaseUrl });
-    client.on('notification', (msg) => {
-      if (!msg.payload) return;
-      try {
-        const payload = JSON.parse(msg.payload);
-        if (msg.channel === 'cribra_runs') this.events.next({ type: 'run', run: payload as RunProgressEvent });
-        else this.events.next({ type: 'notebook', notebookId: payload.notebookId, revision: payload.revision });
-      } catch {
-        this.logger.warn(`Ignored a malformed notification on ${msg.channel}`);
-      }
-    });
-    client.on('error', (err) => {
-      // One lost connection may raise several errors; only the current client schedules a retry.
-      if (this.client !== client && this.client !== null) return;
-      this.logger.warn(`Notification connection lost (${err.message}); reconnecting`);
-      this.client = null;
-      void client.end().catch(() => undefined);
-      this.reconnectSoon();
-    });
+  private heard(msg: Notification): void {
+    if (!msg.payload) return;
     try {
-      await client.connect();
-      await client.query('LISTEN cribra_runs');
-      await client.query('LISTEN cribra_notebooks');
-    } catch (e) {
-      void client.end().catch(() => undefined);
-      throw e;
+      const payload = JSON.parse(msg.payload);
+      if (msg.channel === 'cribra_runs') this.events.next({ type: 'run', run: payload as RunProgressEvent });
+      else this.events.next({ type: 'notebook', notebookId: payload.notebookId, revision: payload.revision });
+    } catch {
+      this.logger.warn(`Ignored a malformed notification on ${msg.channel}`);
     }
-    this.client = client;
-  }
-
-  /** Retries every second until connected: a database restart may take longer than one try. */
-  private reconnectSoon(): void {
-    if (this.closing || this.reconnecting) return;
-    this.reconnecting = true;
-    setTimeout(() => {
-      this.reconnecting = false;
-      if (this.closing || this.client) return;
-      void this.connect().catch((e: Error) => {
-        this.logger.warn(`Could not listen again (${e.message}); retrying`);
-        this.reconnectSoon();
-      });
-    }, 1000);
   }
 
   async onModuleDestroy(): Promise<void> {
-    this.closing = true;
     this.events.complete();
-    await this.client?.end().catch(() => undefined);
+    await this.listener.stop();
   }
 
   private notebookId(e: NotebookEvent): string {
