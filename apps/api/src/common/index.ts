@@ -5,3 +5,4 @@ export { AdminGuard } from './guards/admin.guard';
 export { CurrentUser } from './decorators/current-user.decorator';
 export { createValidationPipe, validationException } from './pipes/validation';
 export { Csrf, CSRF_COOKIE } from './middleware/csrf';
+export { PageDto } from './dto/page.dto';

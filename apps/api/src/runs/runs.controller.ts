@@ -2,11 +2,10 @@ import { Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query, Sse, UseG
 import { ApiCookieAuth, ApiOperation, ApiProduces, ApiTags } from '@nestjs/swagger';
 import type { Observable } from 'rxjs';
 import type { Page, RunAllResponse, RunView } from '@cribra/contracts';
-import { CurrentUser, SignedInGuard } from '../common';
+import { CurrentUser, PageDto, SignedInGuard } from '../common';
 import type { UserEntity } from '../users/user.entity';
 import { CellsService } from '../cells/cells.service';
 import { NotebookPolicyService } from '../members/notebook-policy.service';
-import { PageDto } from './dto/page.dto';
 import { RunEventsService, type SseMessage } from './run-events.service';
 import { RunsService } from './runs.service';
 

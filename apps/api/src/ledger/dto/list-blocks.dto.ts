@@ -1,6 +1,6 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { IsNumberString, IsOptional, MaxLength } from 'class-validator';
-import { PageDto } from '../../runs/dto/page.dto';
+import { PageDto } from '../../common/dto/page.dto';
 
 export class ListBlocksDto extends PageDto {
   @ApiPropertyOptional({ description: 'Only blocks ending after this number' })

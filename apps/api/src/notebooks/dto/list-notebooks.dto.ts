@@ -1,9 +1,9 @@
 import { ApiPropertyOptional } from '@nestjs/swagger';
-import { Type } from 'class-transformer';
-import { IsIn, IsInt, IsOptional, IsString, Max, MaxLength, Min } from 'class-validator';
+import { IsIn, IsOptional, IsString, MaxLength } from 'class-validator';
 import { MEMBER_ROLES, NOTEBOOK_STATUSES, type MemberRole, type NotebookListQuery, type NotebookStatus } from '@cribra/contracts';
+import { PageDto } from '../../common/dto/page.dto';
 
-export class ListNotebooksDto implements NotebookListQuery {
+export class ListNotebooksDto extends PageDto implements NotebookListQuery {
   @ApiPropertyOptional({ description: 'Words searched in title, summary and tags' })
   @IsOptional()
   @IsString()
@@ -25,19 +25,4 @@ export class ListNotebooksDto implements NotebookListQuery {
   @IsOptional()
   @IsIn(MEMBER_ROLES as MemberRole[], { message: 'role must be owner, editor, reviewer or viewer' })
   role?: MemberRole;
-
-  @ApiPropertyOptional({ default: 1 })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt()
-  @Min(1)
-  page?: number;
-
-  @ApiPropertyOptional({ default: 20 })
-  @IsOptional()
-  @Type(() => Number)
-  @IsInt()
-  @Min(1)
-  @Max(100)
-  pageSize?: number;
 }

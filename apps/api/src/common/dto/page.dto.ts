@@ -1,3 +1,4 @@
+// Paging query shared by every list route: page from 1, pageSize from 1 to 100.
 import { ApiPropertyOptional } from '@nestjs/swagger';
 import { Type } from 'class-transformer';
 import { IsInt, IsOptional, Max, Min } from 'class-validator';
