@@ -54,7 +54,7 @@ describe('levels, ledger and computations', () => {
     try {
       const provider = new PgDataProvider(pool, { notebookId: NO_SUCH_ID, runnerId: 'test', maxInlineBlocks: 0, requestLedger: async () => undefined, onNote: () => undefined });
       const seen = await provider.level(11);
-      expect(seen).toMatchObject({ prime: 11, modulus: 2310n, phi: 480n, largestGap: 14 });
+      expect(seen).toMatchObject({ prime: 11, modulus: 2310n, phi: 480n, largestGap: 14 }); // sources as above (A002110, A005867, A048670)
       expect(seen!.histogram).toEqual(level.histogram.map((h) => ({ gap: h.gap, count: BigInt(h.count) })));
       expect(await provider.level(13)).toBeNull();
       expect(await provider.upload('none')).toBeNull();

@@ -164,6 +164,7 @@ describe('queue and runners', () => {
     const chunkRunners = stack.logs.get('level-d')!.includes('chunk') && stack.logs.get('level-e')!.includes('chunk');
     expect(chunkRunners).toBe(true);
     const single = wheelLevelStats(17, [2]);
+    // 17# = 510510 (OEIS A002110), φ(17#) = 92160 (OEIS A005867)
     expect(level).toMatchObject({ prime: 17, modulus: '510510', phi: '92160', largestGap: single.maxGap });
     expect(level.histogram).toEqual([...single.histogram].map(([gap, count]) => ({ gap, count: count.toString() })));
     expect(level.patternTallies).toEqual([

@@ -70,7 +70,7 @@ describe('runs', () => {
       const run = await finished(queued.id);
       expect(run).toMatchObject({ status: 'succeeded', progress: 1, runnerId: 'runs-a', attempts: 1, error: null });
       expect(run.outputs).toHaveLength(2);
-      expect(run.outputs![0]).toMatchObject({ kind: 'value', text: '30030' });
+      expect(run.outputs![0]).toMatchObject({ kind: 'value', text: '30030' }); // 13# = 30030 (OEIS A002110)
       expect(run.outputs![1]).toMatchObject({ kind: 'value', text: '5760' }); // φ(13#) = 5760 (OEIS A005867)
       expect(run.outputDigest).toBe(outputsDigest(run.outputs as unknown as SiftOutput[]));
       expect(run.engineVersion).toMatch(/^\d+\.\d+\.\d+/);
