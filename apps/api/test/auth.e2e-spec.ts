@@ -48,6 +48,7 @@ describe('auth: sign-up, sign-in, sign-out, me, password change', () => {
     const c = new Client(app);
     await c.signIn(email, PASSWORD);
     const first = c.cookie('cribra.sid');
+    expect(first).toBeDefined(); // else the checks below would pass on no session at all
     await c.signIn(email, PASSWORD);
     const second = c.cookie('cribra.sid');
     expect(second).toBeDefined();

@@ -167,7 +167,9 @@ describe('the review flow', () => {
     for (const a of ['invitation.create', 'invitation.accept', 'member.join', 'review.request', 'review.signoff', 'review.signoff_void']) {
       expect(actions).toContain(a);
     }
-    expect(ownerUser.id).toBeTruthy();
+    // The owner asked for review: the audit names them as the actor.
+    const request = audit.body.find((e: { action: string }) => e.action === 'review.request') as { actor: { id: string } | null };
+    expect(request.actor?.id).toBe(ownerUser.id);
   });
 
   it('asking for changes returns the notebook to draft; a sign-off needs a finished re-verify', async () => {

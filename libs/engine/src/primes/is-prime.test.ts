@@ -27,7 +27,6 @@ describe('isPrime', () => {
   });
 
   it('the two factors of 2^67 − 1 are prime (Cole 1903)', () => {
-    expect(193_707_721n * 761_838_257_287n).toBe(2n ** 67n - 1n);
     expect(isPrime(193_707_721n)).toBe(true);
     expect(isPrime(761_838_257_287n)).toBe(true);
   });
