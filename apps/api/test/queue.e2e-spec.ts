@@ -7,6 +7,9 @@ import { QueueStack, waitFor } from './helpers/queue-stack';
  * The queue under stress: a runner killed mid-job, and chunked computations shared by two runners
  * that must equal the single-process result.
  */
+/** Chunk jobs pause this long on test runners, so that two runners both take part. */
+const SHARE_PAUSE = { CRIBRA_RUNNER_TEST_PAUSE_MS: '700' };
+
 describe('queue and runners', () => {
   const stack = new QueueStack();
   let owner: Person;
@@ -100,9 +103,12 @@ describe('queue and runners', () => {
   }, 60_000);
 
   it('computes a ledger range in blocks shared by two runners, equal to one single-process sieve', async () => {
-    stack.startRunner('share-c');
+    // Each block job pauses a little so that neither runner can drain the queue alone.
+    await stack.stopRunnersNamed(['kill-b']);
+    stack.startRunner('share-b', SHARE_PAUSE);
+    stack.startRunner('share-c', SHARE_PAUSE);
     await waitFor('both runners', async () => {
-      const rows = await sql(`SELECT id FROM runners WHERE id IN ('kill-b', 'share-c') AND stopped_at IS NULL`);
+      const rows = await sql(`SELECT id FROM runners WHERE id IN ('share-b', 'share-c') AND stopped_at IS NULL`);
       return rows.length === 2 ? true : undefined;
     });
     const to = 60_000_000;
@@ -120,7 +126,7 @@ describe('queue and runners', () => {
     );
     expect(done).toMatchObject({ status: 'succeeded', chunksDone: 6 });
     const by = await sql<{ computed_by: string }>(`SELECT DISTINCT computed_by FROM ledger_blocks ORDER BY 1`);
-    expect(by.map((r) => r.computed_by)).toEqual(['kill-b', 'share-c']);
+    expect(by.map((r) => r.computed_by)).toEqual(['share-b', 'share-c']);
 
     const range = (await owner.client.call('get', `/api/ledger/range?from=0&to=${to}`)).body as LedgerRangeView;
     const single = primeBlockToJson(sievePrimeBlock(0, to - 1, { gaps: true, patterns: Object.values(LEDGER_CONSTELLATIONS).map((p) => [...p]) }));
@@ -144,11 +150,11 @@ describe('queue and runners', () => {
 
   it('streams a wheel level in chunks on two runners, equal to the one-piece enumeration', async () => {
     // Only how the work is cut changes: 17# streamed over 13# in chunks of at most 20 000 steps.
-    const knobs = { CRIBRA_LEVEL_ONE_PIECE_UP_TO: '13', CRIBRA_LEVEL_STEPS_PER_CHUNK: '20000' };
+    const knobs = { CRIBRA_LEVEL_ONE_PIECE_UP_TO: '13', CRIBRA_LEVEL_STEPS_PER_CHUNK: '20000', ...SHARE_PAUSE };
     stack.startRunner('level-d', knobs);
     stack.startRunner('level-e', knobs);
     // Leave the level jobs to the two runners with the knobs.
-    await stack.stopRunnersNamed(['kill-b', 'share-c']);
+    await stack.stopRunnersNamed(['share-b', 'share-c']);
     const requested = await owner.client.call('post', '/api/levels/17/computations');
     expect(requested.status).toBe(202);
     const level = await waitFor(

@@ -22,7 +22,7 @@ export interface RunnerConfig {
   levelOnePieceUpTo: number;
   /** Base-cycle steps per level chunk job. */
   levelStepsPerChunk: number;
-  /** Test hook, honoured only with CRIBRA_ENV=test: pause inside each job after it started. */
+  /** Test hook, honoured only with CRIBRA_ENV=test: pause inside each cell or chunk job after it started. */
   testPauseMs: number;
   env: string;
 }

@@ -1,6 +1,6 @@
 import type { LevelChunkJob } from '@cribra/contracts';
 import { computeLevelChunk } from '../data/level-tallies';
-import type { JobHandler } from '../job-context';
+import { sleep, type JobHandler } from '../job-context';
 import { sendCombine } from './combine.job';
 
 /** Computes one chunk of a wheel level; stored once (primary key), then counted by recount. */
@@ -11,6 +11,7 @@ export const levelChunk: JobHandler<LevelChunkJob> = async (ctx, job) => {
   if (!state.rowCount || state.rows[0].status === 'succeeded' || state.rows[0].status === 'failed') return;
   const exists = await db.query(`SELECT 1 FROM level_chunks WHERE computation_id = $1 AND chunk_index = $2`, [computationId, index]);
   if (!exists.rowCount) {
+    if (cfg.testPauseMs) await sleep(cfg.testPauseMs);
     const t0 = Date.now();
     const summary = computeLevelChunk(prime, index, { base: base ?? null, chunks });
     await db.query(
