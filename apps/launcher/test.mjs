@@ -9,7 +9,13 @@ import { LaunchError, aptInstall, bold, ensureDependencies, requireFreePorts, st
 import { bringUp, build, stopCurrent } from './stack.mjs';
 import { SUITES, runSuite } from './suites.mjs';
 
-const PORTS = { api: 4320, pg: 4321, smtp: 4322, mailWeb: 4323 };
+// CRIBRA_TEST_PORT_BASE moves the four test ports when another test stack already runs on this machine.
+const BASE = Number(process.env.CRIBRA_TEST_PORT_BASE ?? 4320);
+if (!Number.isInteger(BASE) || BASE < 1024 || BASE > 65000) {
+  console.error(`CRIBRA_TEST_PORT_BASE must be a port number between 1024 and 65000, got "${process.env.CRIBRA_TEST_PORT_BASE}".`);
+  process.exit(2);
+}
+const PORTS = { api: BASE, pg: BASE + 1, smtp: BASE + 2, mailWeb: BASE + 3 };
 const CHROMIUM = '/usr/bin/chromium';
 
 function selectedSuites() {
