@@ -7,3 +7,4 @@ export * from './chunk';
 export * from './recursion';
 export * from './level';
 export * from './pair-recursion';
+export * from './quad-chunks';
