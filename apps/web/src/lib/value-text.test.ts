@@ -11,10 +11,10 @@ describe('valueText', () => {
     [{ t: 'real', v: 1.3203236316 }, '1.3203236316', '1.3203236316'],
     [{ t: 'real', v: 'Infinity' }, 'Infinity', 'Infinity'],
     [{ t: 'bool', v: true }, 'true', 'true'],
-    [{ t: 'tuple', v: ['0', '2', '6', '8'] }, '(0, 2, 6, 8)', '(0, 2, 6, 8)'],
+    [{ t: 'tuple', v: ['0', '2', '6', '8'] }, '{0, 2, 6, 8}', '{0, 2, 6, 8}'],
     [{ t: 'range', lo: '5', hi: '10000', primes: true }, 'primes 5..10 000', 'primes 5..10000'],
     [{ t: 'series', v: [{ t: 'int', v: '1' }, { t: 'int', v: '2000' }] }, '[1, 2 000]', '[1, 2000]'],
-    [{ t: 'record', v: [['gap', { t: 'int', v: '4' }], ['ok', { t: 'bool', v: false }]] }, '{gap: 4, ok: false}', '{gap: 4, ok: false}'],
+    [{ t: 'record', v: [['gap', { t: 'int', v: '4' }], ['ok', { t: 'bool', v: false }]] }, '(gap: 4, ok: false)', '(gap: 4, ok: false)'],
     [{ t: 'table', columns: ['p', 'gap'], rows: [[], []] }, 'table of 2 rows (p, gap)', 'table of 2 rows (p, gap)'],
   ])('%j', (value, display, exact) => {
     expect(valueText(value).replaceAll('\u2009', ' ')).toBe(display);
@@ -22,7 +22,7 @@ describe('valueText', () => {
   });
 
   it('writes a binding as name = value', () => {
-    expect(bindingText([['p', { t: 'int', v: '7' }], ['h', { t: 'tuple', v: ['0', '2'] }]])).toBe('p = 7, h = (0, 2)');
+    expect(bindingText([['p', { t: 'int', v: '7' }], ['h', { t: 'tuple', v: ['0', '2'] }]])).toBe('p = 7, h = {0, 2}');
   });
 });
 

@@ -8,7 +8,7 @@ export interface TextOptions {
 
 const int = (v: string, o: TextOptions) => (o.grouped === false ? v : groupDigits(v));
 
-/** The text of one Sift value: exact for integers and rationals, tuples as (a, b, c). */
+/** The text of one Sift value, in Sift's own notation: exact integers and rationals, tuples {a, b, c}, records (k: v). */
 export function valueText(value: ValueJson, o: TextOptions = {}): string {
   switch (value.t) {
     case 'int':
@@ -24,13 +24,13 @@ export function valueText(value: ValueJson, o: TextOptions = {}): string {
     case 'str':
       return value.v;
     case 'tuple':
-      return `(${value.v.map((x) => int(x, o)).join(', ')})`;
+      return `{${value.v.map((x) => int(x, o)).join(', ')}}`;
     case 'range':
       return `${value.primes ? 'primes ' : ''}${int(value.lo, o)}..${int(value.hi, o)}`;
     case 'series':
       return `[${value.v.map((x) => valueText(x, o)).join(', ')}]`;
     case 'record':
-      return `{${value.v.map(([k, x]) => `${k}: ${valueText(x, o)}`).join(', ')}}`;
+      return `(${value.v.map(([k, x]) => `${k}: ${valueText(x, o)}`).join(', ')})`;
     case 'table':
       return `table of ${value.rows.length} row${value.rows.length === 1 ? '' : 's'} (${value.columns.join(', ')})`;
     case 'fn':
