@@ -2,6 +2,7 @@ import { inputError, limitError } from '../errors';
 import { combinePrimeBlocks } from '../sieve/combine';
 import { compilePattern } from '../sieve/pattern';
 import type { PrimeBlock } from '../sieve/prime-block';
+import { checkStop, partHooks, type WorkHooks } from '../sieve/progress';
 import { parseSieveRange, sieveCompiled, type RangeEnd } from '../sieve/range';
 import { logIntegralK } from './log-integral';
 import { singularSeries } from './singular-series';
@@ -45,16 +46,18 @@ export function hardyLittlewoodPrediction(
 
 /**
  * The prediction S(H)·Li_k(x) beside the actual count of n ≥ 0 with n + h prime for all h ∈ H and
- * n + max H ≤ x (segmented sieve of [0, x]).
- * @throws EngineError as {@link hardyLittlewoodPrediction} and the sieve (x ≤ 10^15).
+ * n + max H ≤ x (segmented sieve of [0, x]; `hooks` report its progress and may stop it, as in
+ * {@link sievePrimeBlock}).
+ * @throws EngineError as {@link hardyLittlewoodPrediction} and the sieve (x ≤ 10^15; limit when stopped).
  */
 export function compareWithHardyLittlewood(
   pattern: ReadonlyArray<number | bigint | string>,
   x: RangeEnd,
+  hooks: WorkHooks = {},
 ): HardyLittlewoodComparison {
   const p = hardyLittlewoodPrediction(pattern, x);
   const range = parseSieveRange(0n, p.x);
-  const block = sieveCompiled(range.from, range.to, [compilePattern(p.pattern)], false);
+  const block = sieveCompiled(range.from, range.to, [compilePattern(p.pattern)], false, hooks);
   const actual = block.patterns[0]!.count;
   return { ...p, actual, difference: actual - p.predicted, ratio: actual / p.predicted };
 }
@@ -80,6 +83,18 @@ export interface HardyLittlewoodCrossings {
   readonly last: { readonly x: bigint; readonly actual: number; readonly predicted: number };
 }
 
+/** Options of {@link hardyLittlewoodCrossings}: the sampled range and step, optional progress and stop hooks. */
+export interface HardyLittlewoodCrossingsOptions extends WorkHooks {
+  readonly from?: RangeEnd;
+  readonly to: RangeEnd;
+  readonly step: RangeEnd;
+}
+
+/** Progress of {@link hardyLittlewoodCrossings} is reported (and a stop checked) each time another 1/REPORTS of the range is done. */
+const REPORTS = 256;
+/** Steps at least this long are sieved with the hooks passed down (several sieve segments each). */
+const LONG_STEP = 60_000_000n;
+
 /** Largest number of samples {@link hardyLittlewoodCrossings} takes. */
 export const MAX_CROSSING_SAMPLES = 1_000_000;
 
@@ -87,12 +102,14 @@ export const MAX_CROSSING_SAMPLES = 1_000_000;
  * The sign changes of actual(x) − S(H)·Li_k(x) sampled at x = from + step, from + 2·step, …, to
  * (actual(x) counts n ≥ 0 with every n + h prime and n + max H ≤ x). Samples where the difference is
  * exactly 0 carry no sign. One sieve pass: each step is a block combined into the running total.
+ * `onProgress` gets the fraction of [0, to] sieved (every 1/256 of it, or every few sieve segments
+ * for long steps) and `shouldStop` is polled at the same points.
  * @throws EngineError(input) for from < 2, step < 1, to ≤ from; EngineError(limit) for more than
- *   10^6 samples or to > 10^15; and as {@link singularSeries}.
+ *   10^6 samples, to > 10^15 or when `shouldStop` answers true; and as {@link singularSeries}.
  */
 export function hardyLittlewoodCrossings(
   pattern: ReadonlyArray<number | bigint | string>,
-  options: { readonly from?: RangeEnd; readonly to: RangeEnd; readonly step: RangeEnd },
+  options: HardyLittlewoodCrossingsOptions,
 ): HardyLittlewoodCrossings {
   const s = singularSeries(pattern);
   const cp = compilePattern(s.pattern);
@@ -106,16 +123,28 @@ export function hardyLittlewoodCrossings(
   if (samples > BigInt(MAX_CROSSING_SAMPLES)) {
     throw limitError(`crossings: ${samples} samples is above ${MAX_CROSSING_SAMPLES} (raise step)`);
   }
-  let total: PrimeBlock = sieveCompiled(0n, from, [cp], false);
+  const hooks: WorkHooks = { onProgress: options.onProgress, shouldStop: options.shouldStop };
+  const what = `comparing with the prediction over [${from}, ${to}]`;
+  const share = (v: bigint): number => Number(v) / Number(to);
+  let total: PrimeBlock = sieveCompiled(0n, from, [cp], false, partHooks(hooks, 0, share(from), what));
   const crossings: HardyLittlewoodCrossing[] = [];
   let sign = 0;
   let lastSignedAt = from;
   let x = from;
   let predicted = 0;
+  let reported = Math.floor(share(from) * REPORTS);
   while (x < to) {
     const nx = x + step > to ? to : x + step;
-    total = combinePrimeBlocks(total, sieveCompiled(x + 1n, nx, [cp], false));
+    const part = nx - x >= LONG_STEP ? partHooks(hooks, share(x), share(nx), what) : undefined;
+    total = combinePrimeBlocks(total, sieveCompiled(x + 1n, nx, [cp], false, part));
     x = nx;
+    const mark = Math.floor(share(x) * REPORTS);
+    if (mark > reported) {
+      reported = mark;
+      checkStop(hooks, what);
+      // A long step's sieve has reported its own end already.
+      if (!part) hooks.onProgress?.(share(x), what);
+    }
     predicted = s.value * logIntegralK(s.k, x);
     const d = total.patterns[0]!.count - predicted;
     const sg = d > 0 ? 1 : d < 0 ? -1 : 0;

@@ -6,9 +6,13 @@ import { activate, crossLookahead, crossRange } from './cross';
 import { L1_BYTES, LARGE_PRIME_BOUND, SEGMENT_BYTES, SMALL_PRIME_BOUND } from './layout';
 import { PRESIEVE_PERIOD, presievePattern } from './presieve';
 import { LAST_PATTERN_PRIME, PATTERN_PRIMES, PATTERN_PRIMES_BYTES, applyWordPatterns } from './presieve-words';
+import { checkStop, type WorkHooks } from './progress';
 import { RESIDUE_BIT, WORD_BIT_VALUE, popcountWords } from './wheel30';
 
 export { SEGMENT_BYTES } from './layout';
+
+/** Segments between two progress reports / stop checks (about 6·10^7 integers, tens of milliseconds). */
+export const SEGMENTS_PER_REPORT = 4;
 
 /** Statistics of one constellation pattern over a block (numbers; −1 for "none"). */
 export interface CorePatternResult {
@@ -47,7 +51,9 @@ let scratchU32 = new Uint32Array(0);
  * 47 ≤ p < LARGE_PRIME_BOUND crossed off per wheel residue class (eight progressions of step p
  * bytes, unrolled), the larger ones by a bucket sieve. `sieving` must hold every prime ≤ √b in
  * increasing order (more are ignored). Counts primes, the given patterns (n ≥ a, n + max H ≤ b) and,
- * when asked, the gap histogram and the record gaps.
+ * when asked, the gap histogram and the record gaps. `hooks` are called every
+ * SEGMENTS_PER_REPORT segments and once with fraction 1 at the end.
+ * @throws EngineError(limit) when `hooks.shouldStop` answers true (or whatever it throws).
  */
 export function sieveCore(
   a: number,
@@ -55,6 +61,7 @@ export function sieveCore(
   patterns: readonly CompiledPattern[],
   wantGaps: boolean,
   sieving: Uint32Array,
+  hooks?: WorkHooks,
 ): CoreResult {
   const pat: CorePatternResult[] = patterns.map(() => ({ count: 0, first: -1, last: -1 }));
   let histogram = new Float64Array(wantGaps ? 2048 : 0);
@@ -138,9 +145,18 @@ export function sieveCore(
   let active = 0;
   let small = 0;
 
+  const what = `sieving [${a}, ${b}]`;
+  let segments = 0;
   let done = 0;
   while (done < totalBytes) {
-    const len = Math.min(SEGMENT_BYTES, (totalBytes - done + 3) & ~3);
+    if (hooks && segments > 0 && segments % SEGMENTS_PER_REPORT === 0) {
+      checkStop(hooks, what);
+      hooks.onProgress?.(done / totalBytes, what);
+    }
+    segments++;
+    // Rounded up to whole words; compared first, as `& ~3` would wrap above 2^31 bytes (ranges over 6·10^10).
+    const rest = totalBytes - done;
+    const len = rest >= SEGMENT_BYTES ? SEGMENT_BYTES : (rest + 3) & ~3;
     const L = len + extra;
     const base = base0 + 30 * done;
     const off = (base / 30) % PRESIEVE_PERIOD;
@@ -198,6 +214,7 @@ export function sieveCore(
     for (let i = 0; i < patterns.length; i++) if (i !== twinIndex) countPattern(u32, words, base, patterns[i]!, pat[i]!);
     done += len;
   }
+  hooks?.onProgress?.(1, what);
   return finish();
 
   function finish(): CoreResult {

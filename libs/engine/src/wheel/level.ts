@@ -1,4 +1,5 @@
 import { inputError, limitError } from '../errors';
+import { checkStop, type WorkHooks } from '../sieve/progress';
 import { combineWheelChunks, planWheelChunks, runWheelChunk, type WheelChunkTally } from './chunk';
 import { MAX_MEMORY_LEVEL, wheelGaps } from './level-gaps';
 import { checkLevel, previousPrime, primorial, primorialTotient } from './primorial';
@@ -30,10 +31,14 @@ export const DEFAULT_STREAM_STEPS = 2e9;
 /**
  * Streams level `target` over the in-memory level 23 (or the previous level when target ≤ 23) in one
  * thread and returns the combined tallies (first positions only when asked: they cost a second pass).
- * @throws EngineError(limit) when the walk would exceed `maxSteps` base steps.
+ * `hooks` get the fraction of the 64 chunks done after each chunk (tens of milliseconds each for
+ * 29#) and are polled for a stop before each.
+ * @throws EngineError(limit) when the walk would exceed `maxSteps` base steps, or when
+ *   `hooks.shouldStop` answers true.
  */
 export function streamLevel(
   target: number, patternLength: 1 | 2 | 3 | 4, maxSteps = DEFAULT_STREAM_STEPS, radix?: number, firstPositions = false,
+  hooks?: WorkHooks,
 ): WheelChunkTally {
   checkLevel(target, 41);
   const base = Math.min(previousPrime(target), MAX_MEMORY_LEVEL);
@@ -43,7 +48,14 @@ export function streamLevel(
   if (copies * gaps.length > maxSteps) {
     throw limitError(`streaming level ${target} takes ${copies * gaps.length} steps, above the limit ${maxSteps} (use the parallel driver)`);
   }
-  return combineWheelChunks(specs.map((s) => runWheelChunk(s, gaps)));
+  const what = `streaming level ${target}`;
+  const parts = specs.map((s, i) => {
+    checkStop(hooks, what);
+    const t = runWheelChunk(s, gaps);
+    hooks?.onProgress?.((i + 1) / specs.length, what);
+    return t;
+  });
+  return combineWheelChunks(parts);
 }
 
 /** Sums the dense length-L tally over its last gap, giving the length-(L−1) tally (full periods only). */
@@ -70,9 +82,9 @@ function shorterPatterns(t: WheelChunkTally): Map<number, PatternTally> {
  * 23# beyond (29#: about 10^9 steps).
  * @throws EngineError(limit) when streaming would exceed `maxSteps`.
  */
-export function levelQuadTally(P: number, maxSteps = DEFAULT_STREAM_STEPS): PatternTally {
+export function levelQuadTally(P: number, maxSteps = DEFAULT_STREAM_STEPS, hooks?: WorkHooks): PatternTally {
   if (P <= MAX_MEMORY_LEVEL) return scanGapCycle(wheelGaps(P), [4]).patterns.get(4)!;
-  const t = streamLevel(P, 4, maxSteps, histogramMaxGap(gapHistogram(P, maxSteps)) / 2 + 1);
+  const t = streamLevel(P, 4, maxSteps, histogramMaxGap(gapHistogram(P, maxSteps)) / 2 + 1, false, hooks);
   return patternsFromDense(t.patterns!, 4, t.radix + 1, t.radix);
 }
 
@@ -82,15 +94,15 @@ export function levelQuadTally(P: number, maxSteps = DEFAULT_STREAM_STEPS): Patt
  * P itself when that recursion's condition fails.
  * @throws EngineError(limit) when streaming would exceed `maxSteps`.
  */
-export function levelPairTally(P: number, maxSteps = DEFAULT_STREAM_STEPS): PatternTally {
+export function levelPairTally(P: number, maxSteps = DEFAULT_STREAM_STEPS, hooks?: WorkHooks): PatternTally {
   checkLevel(P, 41);
   if (P <= MAX_MEMORY_LEVEL) return scanGapCycle(wheelGaps(P), [2]).patterns.get(2)!;
   const Pp = previousPrime(P);
-  const quads = levelQuadTally(Pp, maxSteps);
+  const quads = levelQuadTally(Pp, maxSteps, hooks);
   let maxPrev = 0;
   for (const key of quads.keys()) for (const g of key.split(',')) maxPrev = Math.max(maxPrev, Number(g));
   if (maxPrev < 2 * P) return nextPairTally(quads, P);
-  const t = streamLevel(P, 2, maxSteps);
+  const t = streamLevel(P, 2, maxSteps, undefined, false, hooks);
   return patternsFromDense(t.patterns!, 2, t.radix + 1, t.radix);
 }
 
@@ -98,9 +110,9 @@ export function levelPairTally(P: number, maxSteps = DEFAULT_STREAM_STEPS): Patt
  * Consecutive pair sums T2_P(g) of level P (see {@link levelPairTally}; a fast dense scan for P ≤ 23).
  * @throws EngineError(limit) when streaming would exceed `maxSteps`.
  */
-export function levelPairSums(P: number, maxSteps = DEFAULT_STREAM_STEPS): GapHistogram {
+export function levelPairSums(P: number, maxSteps = DEFAULT_STREAM_STEPS, hooks?: WorkHooks): GapHistogram {
   if (P <= MAX_MEMORY_LEVEL) return cycleHistogramAndPairSums(wheelGaps(P)).pairSums;
-  return pairSums(levelPairTally(P, maxSteps));
+  return pairSums(levelPairTally(P, maxSteps, hooks));
 }
 
 /**
@@ -108,11 +120,13 @@ export function levelPairSums(P: number, maxSteps = DEFAULT_STREAM_STEPS): GapHi
  * recursion {@link nextHistogram} with the previous level's pair sums ({@link levelPairSums}), or
  * by streaming level p itself when the recursion's condition fails. 29# takes one scan of 23#;
  * 31# a scan of the quadruples of 23#; 37# streams the quadruples of 29# (about 10^9 steps; the
- * parallel driver in `@cribra/engine/node` shares them between worker threads).
+ * parallel driver in `@cribra/engine/node` shares them between worker threads). `hooks` report the
+ * progress of a streamed level (see {@link streamLevel}); the in-memory scans and the recursion
+ * report nothing.
  * @throws EngineError(input) when p is not a prime; EngineError(limit) when the work would exceed
- *   `maxSteps` streamed steps (default {@link DEFAULT_STREAM_STEPS}).
+ *   `maxSteps` streamed steps (default {@link DEFAULT_STREAM_STEPS}) or `hooks.shouldStop` answers true.
  */
-export function gapHistogram(p: number, maxSteps = DEFAULT_STREAM_STEPS): GapHistogram {
+export function gapHistogram(p: number, maxSteps = DEFAULT_STREAM_STEPS, hooks?: WorkHooks): GapHistogram {
   checkLevel(p, 41);
   if (p <= MAX_MEMORY_LEVEL) return cycleHistogramAndPairSums(wheelGaps(p)).histogram;
   const P = previousPrime(p);
@@ -120,11 +134,11 @@ export function gapHistogram(p: number, maxSteps = DEFAULT_STREAM_STEPS): GapHis
     // one pass over the in-memory cycle gives both inputs of the recursion
     const scan = cycleHistogramAndPairSums(wheelGaps(P));
     if (histogramMaxGap(scan.histogram) < 2 * p) return nextHistogram(scan.histogram, scan.pairSums, p);
-    return histogramFromDense(streamLevel(p, 1, maxSteps).histogram);
+    return histogramFromDense(streamLevel(p, 1, maxSteps, undefined, false, hooks).histogram);
   }
-  const prev = gapHistogram(P, maxSteps);
-  if (histogramMaxGap(prev) < 2 * p) return nextHistogram(prev, levelPairSums(P, maxSteps), p);
-  return histogramFromDense(streamLevel(p, 1, maxSteps).histogram);
+  const prev = gapHistogram(P, maxSteps, hooks);
+  if (histogramMaxGap(prev) < 2 * p) return nextHistogram(prev, levelPairSums(P, maxSteps, hooks), p);
+  return histogramFromDense(streamLevel(p, 1, maxSteps, undefined, false, hooks).histogram);
 }
 
 /**
@@ -139,17 +153,19 @@ export function wheelLevel(p: number, maxSteps = DEFAULT_STREAM_STEPS): WheelLev
 /**
  * Full statistics of level p ≤ 29: histogram, largest gap, first position of each gap and tallies of
  * consecutive gap patterns of the given lengths (2 … 4). Levels ≤ 23 are scanned in memory; 29# is
- * streamed from 23# (about 10^9 steps, several seconds).
- * @throws EngineError(input) when p is not a prime or a length is not in 2 … 4; EngineError(limit) when p > 29.
+ * streamed from 23# (about 10^9 steps, several seconds; `hooks` report its progress per chunk and may
+ * stop it, see {@link streamLevel}).
+ * @throws EngineError(input) when p is not a prime or a length is not in 2 … 4; EngineError(limit) when
+ *   p > 29 or `hooks.shouldStop` answers true.
  */
-export function wheelLevelStats(p: number, patternLengths: readonly number[] = [2, 3, 4]): WheelLevelStats {
+export function wheelLevelStats(p: number, patternLengths: readonly number[] = [2, 3, 4], hooks?: WorkHooks): WheelLevelStats {
   checkLevel(p, 29);
   if (p <= MAX_MEMORY_LEVEL) {
     const s = scanGapCycle(wheelGaps(p), patternLengths);
     return { prime: p, modulus: primorial(p), members: primorialTotient(p), ...s };
   }
   const L = Math.max(1, ...checkLengths(patternLengths)) as 1 | 2 | 3 | 4;
-  return levelStatsFromTally(p, streamLevel(p, L, 4e9, undefined, true), patternLengths);
+  return levelStatsFromTally(p, streamLevel(p, L, 4e9, undefined, true, hooks), patternLengths);
 }
 
 function checkLengths(lengths: readonly number[]): readonly number[] {
