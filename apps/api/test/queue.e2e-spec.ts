@@ -179,4 +179,39 @@ describe('queue and runners', () => {
     // Jacobsthal function of 17#: the largest gap of level 17 is 26 (OEIS A048670; value from memory).
     expect(level.largestGap).toBe(26);
   }, 90_000);
+
+  it('computes a wheel level by recursion from chunked quadruple tallies of the level before, equal to the enumeration', async () => {
+    // 19# from the gap quadruples of 17# (streamed over 13# in chunks of at most 20 000 steps), then
+    // the pair recursion; the level itself is never walked.
+    const knobs = { CRIBRA_LEVEL_ONE_PIECE_UP_TO: '13', CRIBRA_LEVEL_STEPS_PER_CHUNK: '20000', CRIBRA_LEVEL_RECURSION_FROM: '19', ...SHARE_PAUSE };
+    stack.startRunner('level-f', knobs);
+    stack.startRunner('level-g', knobs);
+    await stack.stopRunnersNamed(['level-d', 'level-e']);
+    const requested = await owner.client.call('post', '/api/levels/19/computations');
+    expect(requested.status).toBe(202);
+    const level = await waitFor(
+      'level 19 to be stored',
+      async () => {
+        const l = await owner.client.call('get', '/api/levels/19');
+        return l.status === 200 && l.body.status === 'stored' ? (l.body as WheelLevelView) : undefined;
+      },
+      60_000,
+      300,
+    );
+    // 17# = 17 copies of the 13# cycle: 17·5760 steps in 5 chunks of at most 20 000.
+    expect(level.chunksTotal).toBe(5);
+    const logs = stack.logs.get('level-f')! + stack.logs.get('level-g')!;
+    expect(logs).toContain('by recursion from the quadruples of 17# over 13#');
+    expect(logs).toContain('(quadruples of 17#)');
+    expect(stack.logs.get('level-f')!.includes('chunk') && stack.logs.get('level-g')!.includes('chunk')).toBe(true);
+    const single = wheelLevelStats(19, [2]);
+    // 19# = 9699690 (OEIS A002110), φ(19#) = 1658880 (OEIS A005867)
+    expect(level).toMatchObject({ prime: 19, modulus: '9699690', phi: '1658880', largestGap: single.maxGap });
+    expect(level.histogram).toEqual([...single.histogram].map(([gap, count]) => ({ gap, count: count.toString() })));
+    expect(level.patternTallies).toEqual([
+      { length: 2, entries: [...single.patterns.get(2)!].map(([k, count]) => ({ pattern: k.split(',').map(Number), count: count.toString() })) },
+    ]);
+    // Jacobsthal function of 19#: the largest gap of level 19 is 34 (OEIS A048670; value from memory).
+    expect(level.largestGap).toBe(34);
+  }, 90_000);
 });

@@ -22,6 +22,11 @@ export interface RunnerConfig {
   levelOnePieceUpTo: number;
   /** Base-cycle steps per level chunk job. */
   levelStepsPerChunk: number;
+  /**
+   * Chunked levels from this prime on take the recursion route (quadruples of the level before,
+   * then the pair and histogram recursions) when it applies; smaller ones stream the level itself.
+   */
+  levelRecursionFrom: number;
   /** Test hook, honoured only with CRIBRA_ENV=test: pause inside each cell or chunk job after it started. */
   testPauseMs: number;
   env: string;
@@ -49,6 +54,7 @@ export function readRunnerConfig(env: NodeJS.ProcessEnv = process.env): RunnerCo
     pollMs: positiveInt(env.CRIBRA_RUNNER_POLL_MS, 500, 'CRIBRA_RUNNER_POLL_MS'),
     levelOnePieceUpTo: positiveInt(env.CRIBRA_LEVEL_ONE_PIECE_UP_TO, 23, 'CRIBRA_LEVEL_ONE_PIECE_UP_TO'),
     levelStepsPerChunk: positiveInt(env.CRIBRA_LEVEL_STEPS_PER_CHUNK, 1e9, 'CRIBRA_LEVEL_STEPS_PER_CHUNK'),
+    levelRecursionFrom: positiveInt(env.CRIBRA_LEVEL_RECURSION_FROM, 29, 'CRIBRA_LEVEL_RECURSION_FROM'),
     testPauseMs:
       cribraEnv === 'test' && env.CRIBRA_RUNNER_TEST_PAUSE_MS
         ? positiveInt(env.CRIBRA_RUNNER_TEST_PAUSE_MS, 0, 'CRIBRA_RUNNER_TEST_PAUSE_MS')

@@ -28,6 +28,13 @@ export interface LevelChunkJob {
   chunks: number;
   /** Level the target is streamed over; null: the level is enumerated in one piece. */
   base: number | null;
+  /**
+   * Recursion route: the chunk tallies the consecutive gap quadruples of this level (the level
+   * before `prime`, streamed over `base`) with half-gap radix `radix`; the combine step derives
+   * the level from them. Absent: the level itself is streamed.
+   */
+  quadsOf?: number;
+  radix?: number;
 }
 export interface LedgerBlockJob {
   computationId: string | null;

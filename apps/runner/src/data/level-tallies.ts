@@ -3,18 +3,24 @@ import {
   chunkCopies,
   combineWheelChunks,
   histogramFromDense,
+  levelFromQuadTally,
+  levelQuadTallyChunk,
   MAX_MEMORY_LEVEL,
   patternsFromDense,
   planWheelChunks,
   previousPrime,
   primorial,
   primorialTotient,
+  quadTallyRadix,
   runWheelChunk,
+  wheelChunkTallyFromJson,
+  wheelChunkTallyToJson,
   wheelGaps,
   wheelLevelStats,
   type GapHistogram,
   type PatternTally as EnginePatternTally,
   type WheelChunkTally,
+  type WheelChunkTallyJson,
 } from '@cribra/engine';
 import type { GapCount, PatternTally } from '@cribra/contracts';
 
@@ -26,28 +32,56 @@ export const SMALL_LEVEL_PATTERN_LENGTHS = [2, 3] as const;
 export const STREAMED_PATTERN_LENGTH = 2;
 /** Base-cycle steps per chunk job by default (a few seconds of one core). */
 export const STEPS_PER_CHUNK = 1e9;
+/** Chunked levels from this prime on take the recursion route by default (29#, 31#, 37#, 41#). */
+export const RECURSION_FROM = 29;
 
-/** How a level is split: in one piece (base null) or streamed over `base` in `chunks` chunks. */
+/**
+ * How a level is split: in one piece (base null); streamed over `base` in `chunks` chunks; or, with
+ * `quadsOf`, by the recursion route — the chunks tally the gap quadruples of level `quadsOf` (the
+ * level before, streamed over `base`, half-gap radix `radix`) and the combine step derives the level.
+ */
 export interface LevelPlan {
   base: number | null;
   chunks: number;
+  quadsOf?: number;
+  radix?: number;
+}
+
+function chunkCount(base: number, target: number, stepsPerChunk: number): number {
+  const copies = chunkCopies(base, target);
+  const steps = copies * Number(primorialTotient(base));
+  return Math.max(1, Math.min(copies, Math.ceil(steps / stepsPerChunk)));
 }
 
 /**
- * Plans a level. `onePieceUpTo` (≤ 23) and `stepsPerChunk` only change how the work is cut, never
- * the result (chunks partition the period; see the engine's planWheelChunks).
+ * Plans a level. `onePieceUpTo` (≤ 23), `stepsPerChunk` and `recursionFrom` only change how the work
+ * is cut and which exact route is taken, never the result (chunks partition the period; see the
+ * engine's planWheelChunks and levelFromQuadTally). The recursion route applies when the largest gap
+ * of the level before is below 2p (true for every level up to 41#; checked here all the same).
+ * 31# then costs one stream of 29#'s quadruples (about 10^9 steps) instead of 3·10^10, 37# one
+ * stream of 31#'s quadruples (3·10^10) instead of 10^12.
  */
-export function planLevel(prime: number, onePieceUpTo = IN_ONE_PIECE_UP_TO, stepsPerChunk = STEPS_PER_CHUNK): LevelPlan {
+export function planLevel(
+  prime: number, onePieceUpTo = IN_ONE_PIECE_UP_TO, stepsPerChunk = STEPS_PER_CHUNK, recursionFrom = RECURSION_FROM,
+): LevelPlan {
   if (prime <= Math.min(onePieceUpTo, IN_ONE_PIECE_UP_TO) || prime < 5) return { base: null, chunks: 1 };
+  if (prime >= Math.max(recursionFrom, 7)) {
+    const q = previousPrime(prime);
+    const radix = quadTallyRadix(q); // maxGap(q)/2 + 1
+    if (2 * (radix - 1) < 2 * prime) {
+      const base = Math.min(previousPrime(q), IN_ONE_PIECE_UP_TO);
+      return { base, chunks: chunkCount(base, q, stepsPerChunk), quadsOf: q, radix };
+    }
+  }
   const base = Math.min(previousPrime(prime), onePieceUpTo, IN_ONE_PIECE_UP_TO);
-  const copies = chunkCopies(base, prime);
-  const steps = copies * Number(primorialTotient(base));
-  return { base, chunks: Math.max(1, Math.min(copies, Math.ceil(steps / stepsPerChunk))) };
+  return { base, chunks: chunkCount(base, prime, stepsPerChunk) };
 }
 
 /** A level chunk as stored in level_chunks.summary (JSON). */
 export type ChunkSummaryJson =
   | { kind: 'stats'; prime: number; histogram: GapCount[]; largestGap: number; patternTallies: PatternTally[] }
+  /** Recursion route: the quadruple tally of the level before over this chunk. */
+  | { kind: 'quads'; prime: number; quadsOf: number; tally: WheelChunkTallyJson }
   | {
       kind: 'tally';
       target: number;
@@ -85,6 +119,10 @@ function tallyList(length: number, t: EnginePatternTally): PatternTally {
 
 /** Computes chunk `index` of a level planned as `plan` with the engine. */
 export function computeLevelChunk(prime: number, index: number, plan: LevelPlan): ChunkSummaryJson {
+  if (plan.quadsOf !== undefined) {
+    const t = levelQuadTallyChunk(plan.quadsOf, index, plan.chunks, plan.radix);
+    return { kind: 'quads', prime, quadsOf: plan.quadsOf, tally: wheelChunkTallyToJson(t) };
+  }
   if (plan.base === null) {
     const s = wheelLevelStats(prime, [...SMALL_LEVEL_PATTERN_LENGTHS]);
     return {
@@ -144,6 +182,16 @@ export function combineLevelChunks(prime: number, chunks: ChunkSummaryJson[]): L
   if (chunks.length === 1 && chunks[0].kind === 'stats') {
     const s = chunks[0];
     body = { ...head, largestGap: s.largestGap, histogram: s.histogram, patternTallies: s.patternTallies };
+  } else if (chunks[0]?.kind === 'quads') {
+    // Add the partial quadruple tallies one at a time (each is a dense array of (radix+1)^4 counts).
+    let quads: WheelChunkTally | null = null;
+    for (const c of chunks) {
+      if (c.kind !== 'quads' || c.prime !== prime) throw new Error('mixed chunk kinds');
+      const part = wheelChunkTallyFromJson(c.tally);
+      quads = quads ? combineWheelChunks([quads, part]) : part;
+    }
+    const level = levelFromQuadTally(prime, quads!);
+    body = { ...head, largestGap: level.maxGap, histogram: histogramList(level.histogram), patternTallies: [tallyList(STREAMED_PATTERN_LENGTH, level.pairs)] };
   } else {
     const t = combineWheelChunks(chunks.map((c) => {
       if (c.kind !== 'tally') throw new Error('mixed chunk kinds');

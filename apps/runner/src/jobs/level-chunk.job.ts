@@ -5,7 +5,7 @@ import { sendCombine } from './combine.job';
 
 /** Computes one chunk of a wheel level; stored once (primary key), then counted by recount. */
 export const levelChunk: JobHandler<LevelChunkJob> = async (ctx, job) => {
-  const { computationId, prime, index, chunks, base } = job.data;
+  const { computationId, prime, index, chunks, base, quadsOf, radix } = job.data;
   const { db, cfg } = ctx;
   const state = await db.query(`SELECT status FROM computations WHERE id = $1`, [computationId]);
   if (!state.rowCount || state.rows[0].status === 'succeeded' || state.rows[0].status === 'failed') return;
@@ -13,13 +13,14 @@ export const levelChunk: JobHandler<LevelChunkJob> = async (ctx, job) => {
   if (!exists.rowCount) {
     if (cfg.testPauseMs) await sleep(cfg.testPauseMs);
     const t0 = Date.now();
-    const summary = computeLevelChunk(prime, index, { base: base ?? null, chunks });
+    const summary = computeLevelChunk(prime, index, { base: base ?? null, chunks, ...(quadsOf === undefined ? {} : { quadsOf, radix }) });
     await db.query(
       `INSERT INTO level_chunks (computation_id, chunk_index, summary, runner_id) VALUES ($1, $2, $3, $4)
        ON CONFLICT (computation_id, chunk_index) DO NOTHING`,
       [computationId, index, JSON.stringify(summary), cfg.runnerId],
     );
-    ctx.log(`level ${prime}# chunk ${index + 1}/${chunks} in ${Date.now() - t0} ms`);
+    const what = quadsOf === undefined ? '' : ` (quadruples of ${quadsOf}#)`;
+    ctx.log(`level ${prime}# chunk ${index + 1}/${chunks}${what} in ${Date.now() - t0} ms`);
   }
   // Recount rather than increment, so a repeated job never counts twice.
   const { rows } = await db.query(

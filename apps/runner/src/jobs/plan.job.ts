@@ -28,7 +28,8 @@ async function sendAll(ctx: JobContext, name: string, datas: object[]): Promise<
 }
 
 async function planLevel(ctx: JobContext, id: string, prime: number): Promise<void> {
-  const { base, chunks } = planLevelChunks(prime, ctx.cfg.levelOnePieceUpTo, ctx.cfg.levelStepsPerChunk);
+  const { base, chunks, quadsOf, radix } = planLevelChunks(prime, ctx.cfg.levelOnePieceUpTo, ctx.cfg.levelStepsPerChunk, ctx.cfg.levelRecursionFrom);
+  const route = quadsOf === undefined ? {} : { quadsOf, radix };
   await ctx.db.query(
     `UPDATE computations SET chunks_total = $2, status = 'running', started_at = coalesce(started_at, now()) WHERE id = $1`,
     [id, chunks],
@@ -37,10 +38,11 @@ async function planLevel(ctx: JobContext, id: string, prime: number): Promise<vo
   const { rows } = await ctx.db.query(`SELECT chunk_index FROM level_chunks WHERE computation_id = $1`, [id]);
   const done = new Set(rows.map((r: { chunk_index: number }) => r.chunk_index));
   const jobs: LevelChunkJob[] = [];
-  for (let index = 0; index < chunks; index++) if (!done.has(index)) jobs.push({ computationId: id, prime, index, chunks, base });
+  for (let index = 0; index < chunks; index++) if (!done.has(index)) jobs.push({ computationId: id, prime, index, chunks, base, ...route });
   if (jobs.length) await sendAll(ctx, QUEUES.levelChunk, jobs);
   else await sendCombine(ctx, id);
-  ctx.log(`level ${prime}#: ${chunks} chunk(s) planned`);
+  const how = quadsOf === undefined ? (base === null ? 'in one piece' : `streamed over ${base}#`) : `by recursion from the quadruples of ${quadsOf}# over ${base}#`;
+  ctx.log(`level ${prime}#: ${chunks} chunk(s) planned, ${how}`);
 }
 
 async function planLedger(ctx: JobContext, id: string, first: number, last: number): Promise<void> {
