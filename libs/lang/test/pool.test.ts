@@ -34,6 +34,39 @@ describe('the worker pool', () => {
     expect((await pool.run('1 + 1')).outputs[0]).toMatchObject({ text: '2' });
   });
 
+  it('cancels a long builtin mid-way, once it has reported progress', async () => {
+    const ac = new AbortController();
+    let abortedAt = 0;
+    const progress: number[] = [];
+    const r = await pool.run('ledger(1..10^12)', {
+      signal: ac.signal,
+      onProgress: (f) => {
+        progress.push(f);
+        if (f > 0 && abortedAt === 0) {
+          abortedAt = Date.now();
+          ac.abort();
+        }
+      },
+    });
+    expect(r.error).toEqual({ kind: 'cancelled', message: 'the run was cancelled' });
+    expect(abortedAt).toBeGreaterThan(0);
+    expect(progress.at(-1)!).toBeLessThan(1);
+    expect(Date.now() - abortedAt).toBeLessThan(1_500);
+  });
+
+  it('reports progress of a ledger from inside the engine sieve', async () => {
+    const progress: Array<[number, string]> = [];
+    const r = await pool.run('ledger(1..4·10^8).primes', { onProgress: (f, m) => progress.push([f, m]) });
+    expect(r.error).toBeNull();
+    // π(4·10^8) = 21336326 (OEIS A006880 gives π at powers of 10; this value from memory).
+    expect(r.outputs[0]).toMatchObject({ text: '21336326' });
+    const sieving = progress.filter(([, m]) => m === 'ledger: sieving 1 … 4·10^8');
+    expect(sieving.length).toBeGreaterThanOrEqual(5);
+    for (let i = 1; i < sieving.length; i++) expect(sieving[i]![0]).toBeGreaterThan(sieving[i - 1]![0]);
+    expect(sieving.at(-1)![0]).toBe(1);
+    expect(progress.at(-1)).toEqual([1, 'done']);
+  });
+
   it('reports progress of a long claim', async () => {
     const progress: Array<[number, string]> = [];
     const r = await pool.run('claim isprime(p) over p ∈ primes 2..300000', { onProgress: (f, m) => progress.push([f, m]) });

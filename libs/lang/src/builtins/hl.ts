@@ -2,7 +2,7 @@ import { compareWithHardyLittlewood, hardyLittlewoodCrossings, hardyLittlewoodPr
 import { domainError } from '../errors';
 import { toReal } from '../runtime/arithmetic';
 import { SiftRecord, Table, Tuple } from '../values/types';
-import { argInt, argNum, argRange, argSmall, argTuple, type Builtin, defineBuiltins } from './registry';
+import { argInt, argNum, argRange, argSmall, argTuple, type Builtin, compactInt, defineBuiltins } from './registry';
 
 const hl: Builtin[] = [
   {
@@ -46,8 +46,10 @@ const hl: Builtin[] = [
     call: (a, c) => {
       const x = argInt(a, 1, c, 'hlcheck');
       if (x < 2n) throw domainError('hlcheck: x must be at least 2', c.argSpans[1]);
-      c.progress(0, 'sieving');
-      const r = compareWithHardyLittlewood(argTuple(a, 0, c, 'hlcheck'), x);
+      const h = argTuple(a, 0, c, 'hlcheck');
+      const work = c.work(`sieving 0 … ${compactInt(x)} for {${h.join(', ')}}`);
+      work.onProgress?.(0);
+      const r = compareWithHardyLittlewood(h, x, work);
       return SiftRecord.of([
         ['pattern', new Tuple(r.pattern.map(BigInt))], ['x', r.x], ['constant', r.constant], ['expected', r.predicted],
         ['actual', BigInt(r.actual)], ['difference', r.difference], ['ratio', r.ratio],
@@ -62,8 +64,10 @@ const hl: Builtin[] = [
     call: (a, c) => {
       const r = argRange(a, 1, c, 'crossings');
       const step = argInt(a, 2, c, 'crossings');
-      c.progress(0, 'sieving');
-      const x = hardyLittlewoodCrossings(argTuple(a, 0, c, 'crossings'), { from: r.lo, to: r.hi, step });
+      const h = argTuple(a, 0, c, 'crossings');
+      const work = c.work(`sieving 0 … ${compactInt(r.hi)} for {${h.join(', ')}}, sampling every ${compactInt(step)}`);
+      work.onProgress?.(0);
+      const x = hardyLittlewoodCrossings(h, { from: r.lo, to: r.hi, step, ...work });
       return SiftRecord.of([
         ['pattern', new Tuple(x.pattern.map(BigInt))], ['samples', BigInt(x.samples)],
         ['crossings', new Table(['after', 'before', 'direction'], x.crossings.map((k) => [k.after, k.before, k.direction]))],

@@ -26,8 +26,9 @@ const narrow: Builtin[] = [
     example: { source: 'narrowest(5).diameter', result: '12' },
     call: (a, c) => {
       const k = argSmall(a, 0, c, 'narrowest', 1, 200_000);
-      c.progress(0, `searching k = ${k}`);
-      const t = narrowTuple(k);
+      const work = c.work(`narrowest admissible ${k}-tuple`);
+      work.onProgress?.(0);
+      const t = narrowTuple(k, work);
       return narrowRecord(t, [['exact', t.exact]]);
     },
   },

@@ -1,10 +1,10 @@
-import { combinePrimeBlockList, type PrimeBlock, sievePrimeBlock } from '@cribra/engine';
+import { combinePrimeBlockList, partHooks, type PrimeBlock, sievePrimeBlock } from '@cribra/engine';
 import { domainError, limitError } from '../errors';
 import { IntRange, SiftRecord, Table, Tuple } from '../values/types';
-import { argRange, argTuple, type Builtin, type CallContext, defineBuiltins } from './registry';
+import { argRange, argTuple, type Builtin, type CallContext, compactInt, defineBuiltins } from './registry';
 
-/** Ranges are sieved in blocks of this length, with progress and the time limit checked between blocks. */
-const BLOCK = 50_000_000n;
+/** Longest piece sieved in one engine call (the pieces' summaries are combined exactly). */
+const BLOCK = 10_000_000_000n;
 /** Largest range end the sieve accepts. */
 const SIEVE_MAX = 10n ** 15n;
 
@@ -13,20 +13,26 @@ interface SieveAsk {
   patterns: bigint[][];
 }
 
-/** Sieves lo..hi block by block (engine's segmented sieve), combining the block summaries exactly. */
+/**
+ * Sieves lo..hi with the engine's segmented sieve (pieces of at most 10^10, combined exactly); the
+ * engine reports progress every few segments and checks the time limit and cancellation at the same
+ * points.
+ */
 function sieveRange(r: IntRange, ask: SieveAsk, c: CallContext, fn: string): PrimeBlock {
   if (r.primesOnly) throw domainError(`${fn}: give a plain range a..b (the function finds the primes itself)`, c.argSpans[0]);
   const lo = r.lo < 0n ? 0n : r.lo;
   const hi = r.hi;
   if (hi < lo) throw domainError(`${fn}: the range ${r.lo}..${r.hi} is empty`, c.span);
   if (hi > SIEVE_MAX) throw limitError(`${fn}: ranges end at 10^15 at most`, c.span);
+  c.tick(1000);
+  const work = c.work(`sieving ${compactInt(lo)} … ${compactInt(hi)}`);
+  work.onProgress?.(0);
+  const total = Number(hi - lo + 1n);
   const blocks: PrimeBlock[] = [];
-  const total = hi - lo + 1n;
   for (let from = lo; from <= hi; from += BLOCK) {
     const to = from + BLOCK - 1n < hi ? from + BLOCK - 1n : hi;
-    blocks.push(sievePrimeBlock(from, to, { gaps: ask.gaps, patterns: ask.patterns }));
-    c.tick(1000);
-    c.progress(Number(to - lo + 1n) / Number(total), `sieved ${to - lo + 1n} of ${total}`);
+    const part = partHooks(work, Number(from - lo) / total, Number(to - lo + 1n) / total);
+    blocks.push(sievePrimeBlock(from, to, { gaps: ask.gaps, patterns: ask.patterns, ...part }));
   }
   return combinePrimeBlockList(blocks);
 }

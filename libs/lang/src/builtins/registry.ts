@@ -1,3 +1,4 @@
+import type { WorkHooks } from '@cribra/engine';
 import { domainError, type SourceSpan, typeError } from '../errors';
 import type { DataAccess } from '../provider/types';
 import type { Limits } from '../runtime/limits';
@@ -15,7 +16,13 @@ export interface CallContext {
   tick(n?: number): void;
   /** Reports progress of a long builtin (fraction 0..1). */
   progress(fraction: number, message: string): void;
+  /**
+   * Hooks for a long engine call: its progress is reported under `message`, and its stop check
+   * throws the run's time-limit or cancellation error from inside the engine's loop.
+   */
+  work(message: string): WorkHooks;
 }
+
 
 export type BuiltinArea = 'numbers' | 'collections' | 'tuples' | 'wheel' | 'counts' | 'fit' | 'primes' | 'hardy-littlewood' | 'narrow' | 'data';
 
@@ -116,6 +123,19 @@ export function argRecord(args: Value[], i: number, ctx: CallContext, fn: string
 /** A bigint from a number the engine returned (exact below 2^53, or already a bigint). */
 export function big(x: number | bigint): bigint {
   return typeof x === 'bigint' ? x : BigInt(x);
+}
+
+/** An integer for progress messages: 3000000000 → "3·10^9", 10^9 → "10^9", others in decimal. */
+export function compactInt(n: bigint): string {
+  if (n < 1000n) return n.toString();
+  let m = n;
+  let k = 0;
+  while (m % 10n === 0n) {
+    m /= 10n;
+    k++;
+  }
+  if (k < 3) return n.toString();
+  return m === 1n ? `10^${k}` : `${m}·10^${k}`;
 }
 
 export const rec = (entries: [string, Value][]): SiftRecord => SiftRecord.of(entries);

@@ -30,8 +30,9 @@ export function levelHistogram(c: CallContext, p: number, fn: string): GapHistog
   }
   const hit = computed.get(p);
   if (hit) return hit;
-  c.progress(0, `gap histogram of level ${p}`);
-  const h = gapHistogram(p);
+  const work = c.work(`gap histogram of level ${p}`);
+  work.onProgress?.(0);
+  const h = gapHistogram(p, undefined, work);
   computed.set(p, h);
   c.progress(1, `gap histogram of level ${p}`);
   return h;
@@ -101,8 +102,9 @@ const wheel: Builtin[] = [
     call: (a, c) => {
       const p = levelArg(a, 0, c, 'firstpositions');
       if (p > MAX_STATS_LEVEL) throw limitError(`firstpositions: levels above ${MAX_STATS_LEVEL} are not scanned member by member`, c.span);
-      c.progress(0, `scanning level ${p}`);
-      const s = wheelLevelStats(p, []);
+      const work = c.work(`scanning level ${p} for first positions`);
+      work.onProgress?.(0);
+      const s = wheelLevelStats(p, [], work);
       return new Table(['gap', 'first'], [...s.firstPosition].sort((x, y) => x[0] - y[0]).map(([g, m]) => [BigInt(g), BigInt(m)]));
     },
   },
@@ -141,8 +143,9 @@ function patternTally(c: CallContext, p: number, L: number): Map<string, bigint>
   const hit = s?.patternTallies.find((t) => t.length === L);
   if (hit) return new Map(hit.entries.map((e) => [e.pattern.join(','), e.count]));
   if (p > MAX_STATS_LEVEL) throw limitError(`tally: level ${p} has no stored tallies of length ${L}, and levels above ${MAX_STATS_LEVEL} are not scanned inside a cell`, c.span);
-  c.progress(0, `scanning level ${p}`);
-  const stats = wheelLevelStats(p, [L]);
+  const work = c.work(`scanning level ${p} for runs of ${L} gaps`);
+  work.onProgress?.(0);
+  const stats = wheelLevelStats(p, [L], work);
   return new Map(stats.patterns.get(L) ?? []);
 }
 

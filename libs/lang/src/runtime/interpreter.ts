@@ -37,6 +37,8 @@ class Scope {
 }
 
 const CHECK_EVERY = 2048;
+/** Longest silence between two progress reports of a creeping builtin (the fraction may not have moved a percent). */
+const PROGRESS_EVERY_MS = 250;
 
 /** A tree-walking interpreter over one cell. Deterministic: no clock or randomness reaches a value. */
 export class Interpreter {
@@ -48,6 +50,7 @@ export class Interpreter {
   private callDepth = 0;
   private loopDepth = 0;
   private progressAt = -1;
+  private progressTime = 0;
 
   constructor(private readonly opts: InterpreterOptions) {
     this.now = opts.now ?? (() => Date.now());
@@ -70,20 +73,26 @@ export class Interpreter {
   tick(span: SourceSpan, n = 1): void {
     this.steps += n;
     // Big ticks come from builtins between blocks of engine work: look at the clock each time.
-    if (this.steps >= this.nextCheck || n >= 1000) {
-      this.nextCheck = this.steps + CHECK_EVERY;
-      const { maxSteps, maxMillis } = this.opts.limits;
-      if (this.steps > maxSteps) throw limitError(`the step limit (${maxSteps} steps) was reached`, span);
-      if (this.now() - this.started > maxMillis) throw limitError(`the time limit (${maxMillis / 1000} s) was reached`, span);
-      if (this.opts.shouldStop?.()) throw new SiftError('cancelled', 'the run was cancelled', span);
-    }
+    if (this.steps >= this.nextCheck || n >= 1000) this.checkpoint(span);
+  }
+
+  /** Checks the step and time limits and cancellation now (engine hooks call it between chunks of work). */
+  private checkpoint(span: SourceSpan): void {
+    this.nextCheck = this.steps + CHECK_EVERY;
+    const { maxSteps, maxMillis } = this.opts.limits;
+    if (this.steps > maxSteps) throw limitError(`the step limit (${maxSteps} steps) was reached`, span);
+    if (this.now() - this.started > maxMillis) throw limitError(`the time limit (${maxMillis / 1000} s) was reached`, span);
+    if (this.opts.shouldStop?.()) throw new SiftError('cancelled', 'the run was cancelled', span);
   }
 
   private report(fraction: number, message: string): void {
     if (!this.opts.onProgress) return;
     const pct = Math.floor(fraction * 100);
-    if (pct === this.progressAt && fraction < 1) return;
+    // One report per percent, and at least every PROGRESS_EVERY_MS while a huge range creeps through one percent.
+    const t = this.now();
+    if (pct === this.progressAt && fraction < 1 && t - this.progressTime < PROGRESS_EVERY_MS) return;
     this.progressAt = pct;
+    this.progressTime = t;
     this.opts.onProgress(Math.min(1, Math.max(0, fraction)), message);
   }
 
@@ -642,6 +651,14 @@ export class Interpreter {
       data: this.opts.data,
       tick: (n = 1) => this.tick(e.span, n),
       progress: (f, m) => this.report(f, `${e.name}: ${m}`),
+      work: (message) => ({
+        onProgress: (f) => this.report(f, `${e.name}: ${message}`),
+        // Throws the run's own limit or cancellation error through the engine call.
+        shouldStop: () => {
+          this.checkpoint(e.span);
+          return false;
+        },
+      }),
     };
     try {
       const v = b.call(args, ctx);
