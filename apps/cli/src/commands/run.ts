@@ -3,6 +3,7 @@ import { readFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import {
   MemoryDataProvider, parseNotebookFile, type NotebookFileCell, type RunResult, type SiftOutput, type ValueJson,
+  valueJsonText,
 } from '@cribra/lang';
 import { SiftPool } from '@cribra/lang/node';
 
@@ -149,31 +150,7 @@ function indent(s: string): string {
   return `${s.split('\n').map((l) => `   ${l}`).join('\n')}\n`;
 }
 
-function text(v: ValueJson): string {
-  switch (v.t) {
-    case 'int':
-    case 'rat':
-      return v.v;
-    case 'real':
-      return String(v.v);
-    case 'bool':
-      return String(v.v);
-    case 'str':
-      return v.v;
-    case 'tuple':
-      return `{${v.v.join(', ')}}`;
-    case 'range':
-      return `${v.primes ? 'primes ' : ''}${v.lo}..${v.hi}`;
-    case 'series':
-      return `[${v.v.map(text).join(', ')}]`;
-    case 'record':
-      return `(${v.v.map(([k, x]) => `${k}: ${text(x)}`).join(', ')})`;
-    case 'table':
-      return `table(${v.columns.join(', ')}; ${v.rows.length} rows)`;
-    case 'fn':
-      return v.v;
-  }
-}
+const text = (v: ValueJson): string => valueJsonText(v);
 
 /** Plain-text rendering of one output for the terminal. */
 export function renderOutput(o: SiftOutput): string {

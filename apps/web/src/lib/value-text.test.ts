@@ -15,7 +15,7 @@ describe('valueText', () => {
     [{ t: 'range', lo: '5', hi: '10000', primes: true }, 'primes 5..10 000', 'primes 5..10000'],
     [{ t: 'series', v: [{ t: 'int', v: '1' }, { t: 'int', v: '2000' }] }, '[1, 2 000]', '[1, 2000]'],
     [{ t: 'record', v: [['gap', { t: 'int', v: '4' }], ['ok', { t: 'bool', v: false }]] }, '(gap: 4, ok: false)', '(gap: 4, ok: false)'],
-    [{ t: 'table', columns: ['p', 'gap'], rows: [[], []] }, 'table of 2 rows (p, gap)', 'table of 2 rows (p, gap)'],
+    [{ t: 'table', columns: ['p', 'gap'], rows: [[], []] }, 'table(p, gap; 2 rows)', 'table(p, gap; 2 rows)'],
   ])('%j', (value, display, exact) => {
     expect(valueText(value).replaceAll('\u2009', ' ')).toBe(display);
     expect(valueText(value, { grouped: false })).toBe(exact);

@@ -1,3 +1,4 @@
+import { valueJsonText, type ValueJson as LangValueJson } from '@cribra/lang';
 import { groupDigits } from './format';
 import type { Binding, ValueJson } from './sift-output';
 
@@ -6,38 +7,9 @@ export interface TextOptions {
   grouped?: boolean;
 }
 
-const int = (v: string, o: TextOptions) => (o.grouped === false ? v : groupDigits(v));
-
-/** The text of one Sift value, in Sift's own notation: exact integers and rationals, tuples {a, b, c}, records (k: v). */
+/** The text of one Sift value in Sift's own notation (see valueJsonText), digits grouped unless `grouped: false`. */
 export function valueText(value: ValueJson, o: TextOptions = {}): string {
-  switch (value.t) {
-    case 'int':
-      return int(value.v, o);
-    case 'rat': {
-      const [n, d] = value.v.split('/');
-      return d === undefined ? int(n, o) : `${int(n, o)}/${int(d, o)}`;
-    }
-    case 'real':
-      return typeof value.v === 'number' ? String(value.v) : value.v;
-    case 'bool':
-      return value.v ? 'true' : 'false';
-    case 'str':
-      return value.v;
-    case 'tuple':
-      return `{${value.v.map((x) => int(x, o)).join(', ')}}`;
-    case 'range':
-      return `${value.primes ? 'primes ' : ''}${int(value.lo, o)}..${int(value.hi, o)}`;
-    case 'series':
-      return `[${value.v.map((x) => valueText(x, o)).join(', ')}]`;
-    case 'record':
-      return `(${value.v.map(([k, x]) => `${k}: ${valueText(x, o)}`).join(', ')})`;
-    case 'table':
-      return `table of ${value.rows.length} row${value.rows.length === 1 ? '' : 's'} (${value.columns.join(', ')})`;
-    case 'fn':
-      return value.v;
-    default:
-      return JSON.stringify(value);
-  }
+  return valueJsonText(value as LangValueJson, { formatInteger: o.grouped === false ? undefined : groupDigits });
 }
 
 /** A claim binding as "p = 5, k = 3". */

@@ -7,6 +7,7 @@ import type { Binder, Expr, Program, Stmt } from '../syntax/ast';
 import { formatReal, formatValue } from '../values/format';
 import { bitLength, Rational } from '../values/rational';
 import { valueToJson } from '../values/to-json';
+import { valueJsonText } from '../outputs/value-text';
 import { IntRange, SiftRecord, Table, Tuple, typeName, UserFn, type Value } from '../values/types';
 import * as A from './arithmetic';
 import type { Limits } from './limits';
@@ -708,19 +709,5 @@ export function decimalDigits(r: Rational, digits: number): string {
 }
 
 function jsonText(v: ReturnType<typeof valueToJson>): string {
-  switch (v.t) {
-    case 'int':
-    case 'rat':
-      return v.v;
-    case 'real':
-      return String(v.v);
-    case 'bool':
-      return String(v.v);
-    case 'str':
-      return JSON.stringify(v.v);
-    case 'tuple':
-      return `{${v.v.join(', ')}}`;
-    default:
-      return v.t;
-  }
+  return valueJsonText(v, { quoteStrings: true });
 }
