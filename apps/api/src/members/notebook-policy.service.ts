@@ -95,6 +95,20 @@ export const CHANGES_CONTENT: ReadonlySet<NotebookAction> = new Set<NotebookActi
   'lock.create',
 ]);
 
+/** A notebooks row as PostgreSQL returns it. */
+interface NotebookRow {
+  id: string;
+  title: string;
+  summary: string;
+  tags: string[];
+  owner_id: string;
+  status: NotebookStatus;
+  revision: number;
+  required_signoffs: number;
+  created_at: Date;
+  updated_at: Date;
+}
+
 export interface Authorized {
   notebook: NotebookEntity;
   role: MemberRole | null;
@@ -125,9 +139,21 @@ export class NotebookPolicyService {
 
   /** Loads the notebook and checks `action`; 404 unknown, 409 locked, 403 not allowed. */
   async authorize(actor: Actor, action: NotebookAction, notebookId: string): Promise<Authorized> {
-    const notebook = await this.notebooks.findOne({ where: { id: notebookId } });
-    if (!notebook) throw new NotFoundException('Notebook not found');
-    const role = await this.roleOf(actor.id, notebookId);
+    // One round trip for the notebook and the actor's membership (this runs on every notebook request).
+    const rows: Array<NotebookRow & { member_role: MemberRole | null }> = await this.notebooks.query(
+      `SELECT n.id, n.title, n.summary, n.tags, n.owner_id, n.status, n.revision, n.required_signoffs,
+              n.created_at, n.updated_at, m.role AS member_role
+         FROM notebooks n LEFT JOIN notebook_members m ON m.notebook_id = n.id AND m.user_id = $2
+        WHERE n.id = $1`,
+      [notebookId, actor.id],
+    );
+    if (!rows.length) throw new NotFoundException('Notebook not found');
+    const r = rows[0];
+    const notebook = Object.assign(new NotebookEntity(), {
+      id: r.id, title: r.title, summary: r.summary, tags: r.tags, ownerId: r.owner_id, status: r.status,
+      revision: r.revision, requiredSignoffs: r.required_signoffs, createdAt: r.created_at, updatedAt: r.updated_at,
+    });
+    const role = r.member_role ?? null;
     if (this.can(actor, action, notebook, role)) return { notebook, role };
     if (role === null && (actor.siteRole !== 'admin' || ADMIN_EXCLUDED.has(action))) {
       throw new ForbiddenException('You are not a member of this notebook');

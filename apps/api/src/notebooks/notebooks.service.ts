@@ -108,8 +108,7 @@ export class NotebooksService {
   }
 
   async view(actor: Actor, id: string): Promise<NotebookView> {
-    const summary = await this.summary(actor, id);
-    const [cells, members] = await Promise.all([loadNotebookCells(this.db, id), this.members.list(id)]);
+    const [summary, cells, members] = await Promise.all([this.summary(actor, id), loadNotebookCells(this.db, id), this.members.list(id)]);
     return { ...summary, cells, members };
   }
 

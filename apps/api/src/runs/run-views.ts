@@ -2,11 +2,12 @@ import type { DataSource, EntityManager } from 'typeorm';
 import type { RunView } from '@cribra/contracts';
 
 /** Columns of a run joined with its requester's name, as RunView needs them. */
-const SELECT_RUN = `
+export const SELECT_RUN_COLUMNS = `
   SELECT r.id, r.notebook_id, r.cell_id, r.cell_revision, r.purpose, r.status, r.progress, r.progress_note,
          r.outputs, r.output_digest, r.engine_version, r.language_version, r.runner_id, r.attempts,
          r.requested_by, u.display_name AS requested_by_name, r.queued_at, r.started_at, r.finished_at,
-         r.duration_ms, r.error
+         r.duration_ms, r.error`;
+const SELECT_RUN = `${SELECT_RUN_COLUMNS}
     FROM runs r JOIN users u ON u.id = r.requested_by`;
 
 export interface RunRow {

@@ -1,3 +1,4 @@
+import { randomUUID } from 'node:crypto';
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
@@ -5,7 +6,16 @@ import { QUEUES, type Page, type RunCellJob, type RunPurpose, type RunView } fro
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../members/notebook-policy.service';
 import { QueueService } from '../queue/queue.service';
-import { loadRun, loadRuns, pageRuns } from './run-views';
+import { SELECT_RUN_COLUMNS, loadRun, loadRuns, pageRuns, toRunView, type RunRow } from './run-views';
+
+/** A cells row as runCell reads it. */
+export interface CellToRun {
+  id: string;
+  notebook_id: string;
+  kind: string;
+  source: string;
+  revision: number;
+}
 
 /** Creates runs (a row plus a pg-boss job each), cancels them and reads their history. */
 @Injectable()
@@ -28,37 +38,44 @@ export class RunsService {
     return rows[0].notebook_id;
   }
 
+  /** The cell as a run needs it (404 if unknown); the controller passes it on to runCell. */
+  async cellToRun(cellId: string): Promise<CellToRun> {
+    const cells: CellToRun[] = await this.db.query(`SELECT id, notebook_id, kind, source, revision FROM cells WHERE id = $1`, [cellId]);
+    if (!cells.length) throw new NotFoundException('Cell not found');
+    return cells[0];
+  }
+
   /**
    * Queues a run of the cell's current revision. `purpose` 'reverify' is for the review feature.
    * Note cells have nothing to execute (400).
    */
-  async runCell(actor: Actor, cellId: string, purpose: RunPurpose = 'run'): Promise<RunView> {
-    const cells: Array<{ id: string; notebook_id: string; kind: string; source: string; revision: number }> = await this.db.query(
-      `SELECT id, notebook_id, kind, source, revision FROM cells WHERE id = $1`,
-      [cellId],
-    );
-    if (!cells.length) throw new NotFoundException('Cell not found');
-    const cell = cells[0];
+  async runCell(actor: Actor, cellId: string, purpose: RunPurpose = 'run', loaded?: CellToRun): Promise<RunView> {
+    const cell = loaded ?? (await this.cellToRun(cellId));
     if (cell.kind === 'note') {
       throw new BadRequestException({ message: 'Note cells have nothing to run', details: [{ field: 'kind', messages: ['a note cell cannot run'] }] });
     }
-    const [{ id }] = await this.db.query(
-      `INSERT INTO runs (notebook_id, cell_id, cell_revision, cell_kind, source, purpose, requested_by)
-       VALUES ($1, $2, $3, $4, $5, $6, $7) RETURNING id`,
-      [cell.notebook_id, cell.id, cell.revision, cell.kind, cell.source, purpose, actor.id],
+    // The job id is chosen here, so the run row is stored complete in one statement (which also
+    // returns the view) and pg-boss is told the id: three round trips fewer than insert, send,
+    // update, re-read. The runner only sees the run once the job exists.
+    const jobId = randomUUID();
+    const [row]: RunRow[] = await this.db.query(
+      `WITH r AS (
+         INSERT INTO runs (notebook_id, cell_id, cell_revision, cell_kind, source, purpose, requested_by, job_id)
+         VALUES ($1, $2, $3, $4, $5, $6, $7, $8) RETURNING *)
+       ${SELECT_RUN_COLUMNS} FROM r JOIN users u ON u.id = r.requested_by`,
+      [cell.notebook_id, cell.id, cell.revision, cell.kind, cell.source, purpose, actor.id, jobId],
     );
     try {
-      const job: RunCellJob = { runId: id };
-      const jobId = await this.queue.send(QUEUES.runCell, job);
-      await this.db.query(`UPDATE runs SET job_id = $2 WHERE id = $1`, [id, jobId]);
+      const job: RunCellJob = { runId: row.id };
+      await this.queue.send(QUEUES.runCell, job, { id: jobId });
     } catch (err) {
       await this.db.query(
         `UPDATE runs SET status = 'failed', finished_at = now(), error = $2 WHERE id = $1`,
-        [id, JSON.stringify({ kind: 'internal', message: 'The run could not be queued' })],
+        [row.id, JSON.stringify({ kind: 'internal', message: 'The run could not be queued' })],
       );
       throw err;
     }
-    return this.get(id);
+    return toRunView(row);
   }
 
   /** Queues every query and claim cell of the notebook, top to bottom. */
