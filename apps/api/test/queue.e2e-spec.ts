@@ -148,6 +148,31 @@ describe('queue and runners', () => {
     expect(block0.constellations.twin).toBe('58980');
   }, 120_000);
 
+  /** Requests a level computation and waits until the level is stored. */
+  async function computeLevel(prime: number): Promise<WheelLevelView> {
+    const requested = await owner.client.call('post', `/api/levels/${prime}/computations`);
+    expect(requested.status).toBe(202);
+    return waitFor(
+      `level ${prime} to be stored`,
+      async () => {
+        const l = await owner.client.call('get', `/api/levels/${prime}`);
+        return l.status === 200 && l.body.status === 'stored' ? (l.body as WheelLevelView) : undefined;
+      },
+      60_000,
+      300,
+    );
+  }
+
+  /** The stored level equals the engine's direct enumeration: largest gap, histogram, pair tallies. */
+  function expectEnumeratedLevel(level: WheelLevelView): void {
+    const single = wheelLevelStats(level.prime, [2]);
+    expect(level.largestGap).toBe(single.maxGap);
+    expect(level.histogram).toEqual([...single.histogram].map(([gap, count]) => ({ gap, count: count.toString() })));
+    expect(level.patternTallies).toEqual([
+      { length: 2, entries: [...single.patterns.get(2)!].map(([k, count]) => ({ pattern: k.split(',').map(Number), count: count.toString() })) },
+    ]);
+  }
+
   it('streams a wheel level in chunks on two runners, equal to the one-piece enumeration', async () => {
     // Only how the work is cut changes: 17# streamed over 13# in chunks of at most 20 000 steps.
     const knobs = { CRIBRA_LEVEL_ONE_PIECE_UP_TO: '13', CRIBRA_LEVEL_STEPS_PER_CHUNK: '20000', ...SHARE_PAUSE };
@@ -155,27 +180,13 @@ describe('queue and runners', () => {
     stack.startRunner('level-e', knobs);
     // Leave the level jobs to the two runners with the knobs.
     await stack.stopRunnersNamed(['share-b', 'share-c']);
-    const requested = await owner.client.call('post', '/api/levels/17/computations');
-    expect(requested.status).toBe(202);
-    const level = await waitFor(
-      'level 17 to be stored',
-      async () => {
-        const l = await owner.client.call('get', '/api/levels/17');
-        return l.status === 200 && l.body.status === 'stored' ? (l.body as WheelLevelView) : undefined;
-      },
-      60_000,
-      300,
-    );
+    const level = await computeLevel(17);
     expect(level.chunksTotal).toBeGreaterThan(1);
     const chunkRunners = stack.logs.get('level-d')!.includes('chunk') && stack.logs.get('level-e')!.includes('chunk');
     expect(chunkRunners).toBe(true);
-    const single = wheelLevelStats(17, [2]);
     // 17# = 510510 (OEIS A002110), φ(17#) = 92160 (OEIS A005867)
-    expect(level).toMatchObject({ prime: 17, modulus: '510510', phi: '92160', largestGap: single.maxGap });
-    expect(level.histogram).toEqual([...single.histogram].map(([gap, count]) => ({ gap, count: count.toString() })));
-    expect(level.patternTallies).toEqual([
-      { length: 2, entries: [...single.patterns.get(2)!].map(([k, count]) => ({ pattern: k.split(',').map(Number), count: count.toString() })) },
-    ]);
+    expect(level).toMatchObject({ prime: 17, modulus: '510510', phi: '92160' });
+    expectEnumeratedLevel(level);
     // Jacobsthal function of 17#: the largest gap of level 17 is 26 (OEIS A048670; value from memory).
     expect(level.largestGap).toBe(26);
   }, 90_000);
@@ -187,30 +198,16 @@ describe('queue and runners', () => {
     stack.startRunner('level-f', knobs);
     stack.startRunner('level-g', knobs);
     await stack.stopRunnersNamed(['level-d', 'level-e']);
-    const requested = await owner.client.call('post', '/api/levels/19/computations');
-    expect(requested.status).toBe(202);
-    const level = await waitFor(
-      'level 19 to be stored',
-      async () => {
-        const l = await owner.client.call('get', '/api/levels/19');
-        return l.status === 200 && l.body.status === 'stored' ? (l.body as WheelLevelView) : undefined;
-      },
-      60_000,
-      300,
-    );
+    const level = await computeLevel(19);
     // 17# = 17 copies of the 13# cycle: 17·5760 steps in 5 chunks of at most 20 000.
     expect(level.chunksTotal).toBe(5);
     const logs = stack.logs.get('level-f')! + stack.logs.get('level-g')!;
     expect(logs).toContain('by recursion from the quadruples of 17# over 13#');
     expect(logs).toContain('(quadruples of 17#)');
     expect(stack.logs.get('level-f')!.includes('chunk') && stack.logs.get('level-g')!.includes('chunk')).toBe(true);
-    const single = wheelLevelStats(19, [2]);
     // 19# = 9699690 (OEIS A002110), φ(19#) = 1658880 (OEIS A005867)
-    expect(level).toMatchObject({ prime: 19, modulus: '9699690', phi: '1658880', largestGap: single.maxGap });
-    expect(level.histogram).toEqual([...single.histogram].map(([gap, count]) => ({ gap, count: count.toString() })));
-    expect(level.patternTallies).toEqual([
-      { length: 2, entries: [...single.patterns.get(2)!].map(([k, count]) => ({ pattern: k.split(',').map(Number), count: count.toString() })) },
-    ]);
+    expect(level).toMatchObject({ prime: 19, modulus: '9699690', phi: '1658880' });
+    expectEnumeratedLevel(level);
     // Jacobsthal function of 19#: the largest gap of level 19 is 34 (OEIS A048670; value from memory).
     expect(level.largestGap).toBe(34);
   }, 90_000);
