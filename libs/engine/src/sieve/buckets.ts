@@ -1,5 +1,5 @@
 import { SEGMENT_BYTES } from './layout';
-import { BYTE_CARRY, DELTA, PRODUCT_MASK, PRODUCT_RESIDUE, TO_WHEEL_INDEX, TO_WHEEL_STEP } from './wheel30';
+import { BYTE_CARRY, DELTA, firstCofactor, PRODUCT_MASK, PRODUCT_RESIDUE, TO_WHEEL_INDEX, TO_WHEEL_STEP } from './wheel30';
 
 /**
  * Bucket sieve for the large sieving primes: each waits in the bucket of the segment of its next
@@ -32,17 +32,7 @@ export class LargePrimes {
     while (this.activated < this.to) {
       const p = sieving[this.activated]!;
       if (p * p >= end) break;
-      const first = p * p > base ? p * p : base;
-      let q = Math.floor(first / p);
-      let rem = first - q * p;
-      if (rem < 0) {
-        q--;
-        rem += p;
-      } else if (rem >= p) {
-        q++;
-        rem -= p;
-      }
-      let m = rem === 0 ? q : q + 1;
+      let m = firstCofactor(p, base);
       const r = m - 30 * Math.floor(m / 30);
       m += TO_WHEEL_STEP[r]!;
       const w = TO_WHEEL_INDEX[r]!;

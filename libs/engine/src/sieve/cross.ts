@@ -1,5 +1,5 @@
 // Crossing off the multiples of the sieving primes below LARGE_PRIME_BOUND: eight progressions each.
-import { CLASS_STEP, PRODUCT_MASK, PRODUCT_RESIDUE } from './wheel30';
+import { CLASS_STEP, firstCofactor, PRODUCT_MASK, PRODUCT_RESIDUE } from './wheel30';
 
 /**
  * Crosses off, for the sieving primes i0 ≤ i < i1, every multiple whose byte lies before `end`;
@@ -65,18 +65,7 @@ export function activate(
   while (active < count) {
     const p = sieving[first + active]!;
     if (p * p >= end) break;
-    const start = p * p > base ? p * p : base;
-    // m0 = ⌈start / p⌉ without a floating-point remainder (the quotient is corrected to be exact).
-    let q = Math.floor(start / p);
-    let rem = start - q * p;
-    if (rem < 0) {
-      q--;
-      rem += p;
-    } else if (rem >= p) {
-      q++;
-      rem -= p;
-    }
-    const m0 = rem === 0 ? q : q + 1;
+    const m0 = firstCofactor(p, base);
     const d = (m0 - 30 * Math.floor(m0 / 30)) << 3;
     const pr = (p % 30) << 3;
     const o = active << 3;

@@ -81,3 +81,21 @@ for (let r = 0; r < 30; r++) {
   TO_WHEEL_STEP[r] = t;
   TO_WHEEL_INDEX[r] = RESIDUE_BIT[(r + t) % 30]!;
 }
+
+/**
+ * The cofactor of the first multiple of p to cross off at or after `base`: ⌈max(p², base) / p⌉,
+ * exact for values below 2^53 (the floating-point quotient is corrected by its remainder).
+ */
+export function firstCofactor(p: number, base: number): number {
+  const start = p * p > base ? p * p : base;
+  let q = Math.floor(start / p);
+  let rem = start - q * p;
+  if (rem < 0) {
+    q--;
+    rem += p;
+  } else if (rem >= p) {
+    q++;
+    rem -= p;
+  }
+  return rem === 0 ? q : q + 1;
+}
