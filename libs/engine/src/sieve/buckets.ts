@@ -1,5 +1,8 @@
-import { SEGMENT_BYTES } from './layout';
+import { SEGMENT_BUFFER, SEGMENT_BYTES } from './layout';
 import { BYTE_CARRY, DELTA, firstCofactor, PRODUCT_MASK, PRODUCT_RESIDUE, TO_WHEEL_INDEX, TO_WHEEL_STEP } from './wheel30';
+
+// The segment as a module constant (see SEGMENT_BUFFER: why not a parameter).
+const BUF = new Uint8Array(SEGMENT_BUFFER);
 
 /**
  * Bucket sieve for the large sieving primes: each waits in the bucket of the segment of its next
@@ -21,8 +24,9 @@ export class LargePrimes {
     this.activated = from;
   }
 
-  /** Crosses off the large primes' multiples in the segment starting at block byte `start`. */
-  crossSegment(buf: Uint8Array, base0: number, start: number, len: number, L: number): void {
+  /** Crosses off the large primes' multiples in the segment (block byte `start` on). */
+  crossSegment(base0: number, start: number, len: number, L: number): void {
+    const buf = BUF;
     const segment = start / SEGMENT_BYTES;
     const base = base0 + 30 * start;
     const end = base + 30 * L;

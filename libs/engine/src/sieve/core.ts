@@ -1,13 +1,13 @@
 import { isSmallPrime } from '../primes/small-primes';
 import type { CompiledPattern } from './pattern';
 import { LargePrimes } from './buckets';
-import { clearOutside, countPattern, countPrimesAndTwins, firstBitValue, lastBitValue } from './count';
+import { clearOutside, countPattern, countPrimes, countPrimesAndTwins, firstBitValue, lastBitValue, locateTwins } from './count';
 import { activate, crossLookahead, crossRange } from './cross';
-import { L1_BYTES, LARGE_PRIME_BOUND, SEGMENT_BYTES, SMALL_PRIME_BOUND } from './layout';
+import { L1_BYTES, LARGE_PRIME_BOUND, LOOKAHEAD_BYTES, SEGMENT_BUFFER, SEGMENT_BYTES, SMALL_PRIME_BOUND } from './layout';
 import { PRESIEVE_PERIOD, presievePattern } from './presieve';
 import { LAST_PATTERN_PRIME, PATTERN_PRIMES, PATTERN_PRIMES_BYTES, applyWordPatterns } from './presieve-words';
 import { checkStop, type WorkHooks } from './progress';
-import { RESIDUE_BIT, WORD_BIT_VALUE, popcountWords } from './wheel30';
+import { RESIDUE_BIT, WORD_BIT_VALUE } from './wheel30';
 
 export { SEGMENT_BYTES } from './layout';
 
@@ -41,8 +41,9 @@ export interface CoreResult {
 // Work arrays reused across calls (a sieve call runs to completion before the next one starts).
 let scratchNext = new Int32Array(0);
 let scratchMasks = new Uint8Array(0);
-let scratchBuf = new Uint8Array(0);
-let scratchU32 = new Uint32Array(0);
+// The segment as module constants (see SEGMENT_BUFFER: why not parameters).
+const BUF = new Uint8Array(SEGMENT_BUFFER);
+const WORDS = new Int32Array(SEGMENT_BUFFER);
 
 /**
  * Segmented sieve of Eratosthenes on the mod-30 wheel over [a, b] (safe integers, 0 ≤ a ≤ b,
@@ -117,13 +118,10 @@ export function sieveCore(
   const extra = patterns.length > 0 ? (maxByteOffset + 11) & ~3 : 0;
   const base0 = a - (a % 30);
   const totalBytes = Math.floor((b - base0) / 30) + 1;
-  if (scratchBuf.length < SEGMENT_BYTES + extra + 8) {
-    const buffer = new ArrayBuffer(SEGMENT_BYTES + extra + 8);
-    scratchBuf = new Uint8Array(buffer);
-    scratchU32 = new Uint32Array(buffer);
-  }
-  const buf = scratchBuf;
-  const u32 = scratchU32;
+  // MAX_PATTERN_DIAMETER keeps the look-ahead within the buffer (pattern.test.ts checks it).
+  if (extra > LOOKAHEAD_BYTES) throw new Error(`internal: look-ahead of ${extra} bytes exceeds ${LOOKAHEAD_BYTES}`);
+  const buf = BUF;
+  const u32 = WORDS;
   const pattern = presievePattern(SEGMENT_BYTES + extra + 8);
 
   // Sieving primes from 47 up: next byte of each of the 8 residue-class progressions, and its mask.
@@ -162,34 +160,46 @@ export function sieveCore(
     const off = (base / 30) % PRESIEVE_PERIOD;
     buf.set(pattern.subarray(off, off + L), 0);
     buf.fill(0, L, L + 8);
-    applyWordPatterns(u32, (L + 3) >> 2, base / 30);
+    applyWordPatterns((L + 3) >> 2, base / 30);
     if (base < 30 * PATTERN_PRIMES_BYTES) {
       // The patterns removed 7 … 43 with their multiples: put them back; 1 is not prime.
       if (base === 0) buf[0]! &= 0xfe;
       for (const q of PATTERN_PRIMES) if (q >= base) buf[(q - base - (q % 30)) / 30]! |= 1 << RESIDUE_BIT[q % 30]!;
     }
 
+    // Clearing commutes with crossing off: done first, so that pieces can be counted once finished.
+    clearOutside(base, L, a, b);
+
     // Activate the primes whose square falls before the end of this segment.
     active = activate(sieving, firstSieving, nMedium, active, base, base + 30 * L, next, masks);
-    // Primes with many hits per segment are crossed off one L1-sized piece at a time.
     while (small < active && sieving[firstSieving + small]! < SMALL_PRIME_BOUND) small++;
-    for (let piece = L1_BYTES; piece < len; piece += L1_BYTES) crossRange(buf, next, masks, sieving, firstSieving, 0, small, piece, 0);
-    crossRange(buf, next, masks, sieving, firstSieving, 0, small, len, 0);
-    crossRange(buf, next, masks, sieving, firstSieving, small, active, len, 0);
-    if (L > len) crossLookahead(buf, next, masks, sieving, firstSieving, active, len, L);
+    // The primes with few hits per piece cross the whole segment first; then the small primes one
+    // L1-sized piece at a time, and each piece is counted while it is still in the cache (its last
+    // word waits for the next piece: a twin starting there ends in it).
+    crossRange(next, masks, sieving, firstSieving, small, active, len, 0);
+    if (large) large.crossSegment(base0, done, len, L);
+    const words = len >> 2;
+    const twins = twinIndex >= 0 ? pat[twinIndex]! : null;
+    const twinsBefore = twins ? twins.count : 0;
+    let segCount = 0;
+    let counted = 0;
+    for (let piece = L1_BYTES; piece < len; piece += L1_BYTES) {
+      crossRange(next, masks, sieving, firstSieving, 0, small, piece, 0);
+      const upTo = (piece >> 2) - 1;
+      segCount += twins ? countPrimesAndTwins(counted, upTo, twins) : countPrimes(counted, upTo);
+      counted = upTo;
+    }
+    crossRange(next, masks, sieving, firstSieving, 0, small, len, 0);
+    if (L > len) crossLookahead(next, masks, sieving, firstSieving, active, len, L);
     for (let i = 0, n = active << 3; i < n; i++) next[i] -= len;
-    if (large) large.crossSegment(buf, base0, done, len, L);
-    clearOutside(buf, base, L, a, b);
 
     // Primes of this segment: start bytes [0, len).
-    const words = len >> 2;
-    let segCount = 0;
-    if (twinIndex >= 0) segCount = countPrimesAndTwins(u32, words, base, pat[twinIndex]!);
-    else segCount = popcountWords(u32, words);
+    segCount += twins ? countPrimesAndTwins(counted, words, twins) : countPrimes(counted, words);
+    if (twins && twins.count > twinsBefore) locateTwins(words, base, twins);
     if (segCount > 0) {
       primeCount += segCount;
-      if (firstPrime < 0) firstPrime = base + firstBitValue(u32, 0, words);
-      lastPrime = base + lastBitValue(u32, words);
+      if (firstPrime < 0) firstPrime = base + firstBitValue(0, words);
+      lastPrime = base + lastBitValue(words);
       if (wantGaps) {
         for (let w = 0; w < words; w++) {
           let x = u32[w]!;
@@ -211,7 +221,7 @@ export function sieveCore(
         }
       }
     }
-    for (let i = 0; i < patterns.length; i++) if (i !== twinIndex) countPattern(u32, words, base, patterns[i]!, pat[i]!);
+    for (let i = 0; i < patterns.length; i++) if (i !== twinIndex) countPattern(words, base, patterns[i]!, pat[i]!);
     done += len;
   }
   hooks?.onProgress?.(1, what);

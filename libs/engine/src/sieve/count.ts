@@ -1,10 +1,17 @@
 // Reading a sieved segment: range masking, first/last set bits, pattern occurrences.
 import type { CorePatternResult } from './core';
 import type { CompiledPattern } from './pattern';
+import { SEGMENT_BUFFER } from './layout';
 import { RESIDUES, WORD_BIT_VALUE, popcount32 } from './wheel30';
 
+// The segment as module constants (see SEGMENT_BUFFER: why not parameters). Signed words load as
+// small integers; every use below is bitwise, so the sign bit is just bit 31.
+const BYTES = new Uint8Array(SEGMENT_BUFFER);
+const WORDS = new Int32Array(SEGMENT_BUFFER);
+
 /** Clears the bits of the integers outside [a, b] among the bytes [0, L) that start at base. */
-export function clearOutside(buf: Uint8Array, base: number, L: number, a: number, b: number): void {
+export function clearOutside(base: number, L: number, a: number, b: number): void {
+  const buf = BYTES;
   if (a > base) {
     const k = Math.floor((a - base) / 30);
     buf.fill(0, 0, Math.min(k, L));
@@ -18,7 +25,8 @@ export function clearOutside(buf: Uint8Array, base: number, L: number, a: number
 }
 
 /** Offset from the base of the lowest set bit in words [from, words) (there must be one). */
-export function firstBitValue(u32: Uint32Array, from: number, words: number): number {
+export function firstBitValue(from: number, words: number): number {
+  const u32 = WORDS;
   for (let w = from; w < words; w++) {
     const x = u32[w]!;
     if (x !== 0) return 120 * w + WORD_BIT_VALUE[31 - Math.clz32(x & -x)]!;
@@ -27,7 +35,8 @@ export function firstBitValue(u32: Uint32Array, from: number, words: number): nu
 }
 
 /** Offset from the base of the highest set bit in words [0, words) (there must be one). */
-export function lastBitValue(u32: Uint32Array, words: number): number {
+export function lastBitValue(words: number): number {
+  const u32 = WORDS;
   for (let w = words - 1; w >= 0; w--) {
     const x = u32[w]!;
     if (x !== 0) return 120 * w + WORD_BIT_VALUE[31 - Math.clz32(x)]!;
@@ -36,58 +45,91 @@ export function lastBitValue(u32: Uint32Array, words: number): number {
 }
 
 /** The twin-prime start bits of word w (starts 11, 17 at bits 2, 4 of a byte; 29 at bit 7). */
-const twinBits = (u32: Uint32Array, w: number): number => {
+const twinBits = (w: number): number => {
+  const u32 = WORDS;
   const P = u32[w]!;
   // 11 and 17 pair with the next bit of their byte; 29 with bit 0 of the next byte, which is the
   // next bit of the word except at bit 31.
   return P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494;
 };
 
+/** Number of primes (1 bits) in the words [from, to): three words share one reduction (nibble sums ≤ 12). */
+export function countPrimes(from: number, to: number): number {
+  const u32 = WORDS;
+  let total = 0;
+  let w = from;
+  for (; w + 3 <= to; w += 3) {
+    let a = u32[w]!, b = u32[w + 1]!, c = u32[w + 2]!;
+    a -= (a >>> 1) & 0x55555555;
+    b -= (b >>> 1) & 0x55555555;
+    c -= (c >>> 1) & 0x55555555;
+    let s = (a & 0x33333333) + ((a >>> 2) & 0x33333333) + (b & 0x33333333) + ((b >>> 2) & 0x33333333);
+    s += (c & 0x33333333) + ((c >>> 2) & 0x33333333);
+    s = (s & 0x0f0f0f0f) + ((s >>> 4) & 0x0f0f0f0f);
+    total += Math.imul(s, 0x01010101) >>> 24;
+  }
+  for (; w < to; w++) total += popcount32(u32[w]!);
+  return total;
+}
+
 /**
- * One pass over the words [0, words) counting the primes and the twin pairs that start there
- * (the first and last twin are located afterwards, so the loop has no bookkeeping). Returns the
- * number of primes; adds the twins to `twins`.
+ * One pass over the words [from, to) counting the primes and the twin pairs that start there; reads
+ * word `to` too, which must be final. Returns the number of primes and adds the twins to
+ * `twins.count` (their first and last are found by locateTwins, so the loop has no bookkeeping).
  */
-export function countPrimesAndTwins(u32: Uint32Array, words: number, base: number, twins: CorePatternResult): number {
+export function countPrimesAndTwins(from: number, to: number, twins: CorePatternResult): number {
+  const u32 = WORDS;
   let primes = 0;
   let count = 0;
-  // Three words at a time: their nibble counts (≤ 4 each) add up to ≤ 12 before one reduction.
-  let w = 0;
-  for (; w + 3 <= words; w += 3) {
-    const P0 = u32[w]!, P1 = u32[w + 1]!, P2 = u32[w + 2]!, P3 = u32[w + 3]!;
+  // Four words at a time, without branches (whether a word holds a twin is unpredictable). Primes:
+  // nibble counts (≤ 4 each) of three words add up to ≤ 12, then byte counts to ≤ 32. Twins start
+  // at bits 2, 4, 7 of a byte; shifted right by one they land on 1, 3, 6, so two words share one count.
+  let w = from;
+  for (; w + 4 <= to; w += 4) {
+    const P0 = u32[w]!, P1 = u32[w + 1]!, P2 = u32[w + 2]!, P3 = u32[w + 3]!, P4 = u32[w + 4]!;
     let a = P0 - ((P0 >>> 1) & 0x55555555);
     let b = P1 - ((P1 >>> 1) & 0x55555555);
     let c = P2 - ((P2 >>> 1) & 0x55555555);
+    let d = P3 - ((P3 >>> 1) & 0x55555555);
     a = (a & 0x33333333) + ((a >>> 2) & 0x33333333);
     b = (b & 0x33333333) + ((b >>> 2) & 0x33333333);
     c = (c & 0x33333333) + ((c >>> 2) & 0x33333333);
+    d = (d & 0x33333333) + ((d >>> 2) & 0x33333333);
     let s = a + b + c;
-    s = (s & 0x0f0f0f0f) + ((s >>> 4) & 0x0f0f0f0f);
+    s = (s & 0x0f0f0f0f) + ((s >>> 4) & 0x0f0f0f0f) + (d & 0x0f0f0f0f) + ((d >>> 4) & 0x0f0f0f0f);
     primes += Math.imul(s, 0x01010101) >>> 24;
     const o0 = P0 & ((P0 >>> 1) | (P1 << 31)) & 0x94949494;
     const o1 = P1 & ((P1 >>> 1) | (P2 << 31)) & 0x94949494;
     const o2 = P2 & ((P2 >>> 1) | (P3 << 31)) & 0x94949494;
-    if ((o0 | o1 | o2) !== 0) count += popcount32(o0) + popcount32(o1) + popcount32(o2);
+    const o3 = P3 & ((P3 >>> 1) | (P4 << 31)) & 0x94949494;
+    let x = o0 | (o1 >>> 1);
+    let y = o2 | (o3 >>> 1);
+    x -= (x >>> 1) & 0x55555555;
+    y -= (y >>> 1) & 0x55555555;
+    x = (x & 0x33333333) + ((x >>> 2) & 0x33333333) + (y & 0x33333333) + ((y >>> 2) & 0x33333333);
+    x = (x & 0x0f0f0f0f) + ((x >>> 4) & 0x0f0f0f0f);
+    count += Math.imul(x, 0x01010101) >>> 24;
   }
-  for (; w < words; w++) {
+  for (; w < to; w++) {
     const P = u32[w]!;
     primes += popcount32(P);
-    const occ = P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494;
-    if (occ !== 0) count += popcount32(occ);
+    count += popcount32(P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494);
   }
-  if (count > 0) {
-    twins.count += count;
-    if (twins.first < 0) {
-      w = 0;
-      while (twinBits(u32, w) === 0) w++;
-      const occ = twinBits(u32, w);
-      twins.first = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(occ & -occ)]!;
-    }
-    w = words - 1;
-    while (twinBits(u32, w) === 0) w--;
-    twins.last = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(twinBits(u32, w))]!;
-  }
+  twins.count += count;
   return primes;
+}
+
+/** Sets the first twin (when unset) and the last one from the words [0, words), which hold one. */
+export function locateTwins(words: number, base: number, twins: CorePatternResult): void {
+  if (twins.first < 0) {
+    let w = 0;
+    while (twinBits(w) === 0) w++;
+    const occ = twinBits(w);
+    twins.first = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(occ & -occ)]!;
+  }
+  let w = words - 1;
+  while (twinBits(w) === 0) w--;
+  twins.last = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(twinBits(w))]!;
 }
 
 /**
@@ -95,7 +137,8 @@ export function countPrimesAndTwins(u32: Uint32Array, words: number, base: numbe
  * and updates its first/last occurrence. Occurrence bits are built per 32-bit word: bit c of each
  * byte says that n = 30k + RESIDUES[c] starts an occurrence.
  */
-export function countPattern(u32: Uint32Array, words: number, base: number, cp: CompiledPattern, out: CorePatternResult): void {
+export function countPattern(words: number, base: number, cp: CompiledPattern, out: CorePatternResult): void {
+  const u32 = WORDS;
   let count = 0;
   let firstWord = -1;
   let firstBits = 0;

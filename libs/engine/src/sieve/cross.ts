@@ -1,13 +1,16 @@
 // Crossing off the multiples of the sieving primes below LARGE_PRIME_BOUND: eight progressions each.
+import { SEGMENT_BUFFER } from './layout';
 import { CLASS_STEP, firstCofactor, PRODUCT_MASK, PRODUCT_RESIDUE } from './wheel30';
 
+// The segment as a module constant (see SEGMENT_BUFFER: why not a parameter).
+const BUF = new Uint8Array(SEGMENT_BUFFER);
+
 /**
- * Crosses off, for the sieving primes i0 ≤ i < i1, every multiple whose byte lies before `end`;
- * each progression is left at its first byte ≥ end, minus `shift` (the segment length when the
- * segment is finished, so that positions become relative to the next segment).
+ * Crosses off in the segment buffer, for the sieving primes i0 ≤ i < i1, every multiple whose byte
+ * lies before `end`; each progression is left at its first byte ≥ end, minus `shift` (the segment
+ * length when the segment is finished, so that positions become relative to the next segment).
  */
 export function crossRange(
-  buf: Uint8Array,
   next: Int32Array,
   masks: Uint8Array,
   sieving: Uint32Array,
@@ -17,6 +20,7 @@ export function crossRange(
   end: number,
   shift: number,
 ): void {
+  const buf = BUF;
   for (let i = i0; i < i1; i++) {
     const p = sieving[first + i]!;
     const o = i << 3;
@@ -82,7 +86,6 @@ export function activate(
 
 /** Crosses off the look-ahead bytes [len, L) (they are sieved again as part of the next segment). */
 export function crossLookahead(
-  buf: Uint8Array,
   next: Int32Array,
   masks: Uint8Array,
   sieving: Uint32Array,
@@ -91,6 +94,7 @@ export function crossLookahead(
   len: number,
   L: number,
 ): void {
+  const buf = BUF;
   for (let i = 0; i < active; i++) {
     const p = sieving[first + i]!;
     const o = i << 3;

@@ -10,3 +10,17 @@ export const LARGE_PRIME_BOUND = 1 << 19;
 
 /** Bytes per sieve segment (each byte spans 30 integers); sized for the L2 cache. */
 export const SEGMENT_BYTES = 1 << 19;
+
+/**
+ * Bytes sieved past a segment so that a pattern occurrence starting in it is read whole: at most
+ * MAX_PATTERN_DIAMETER / 30 + 12 (pattern.ts checks the bound), rounded up.
+ */
+export const LOOKAHEAD_BYTES = 1 << 16;
+
+/**
+ * The one segment buffer of this thread (a sieve call runs to completion before the next starts).
+ * The modules with hot loops over it each keep their own view as a module constant: V8 then knows
+ * the view's length and storage, which makes crossing off about a fifth faster than through a
+ * parameter (measured; docs/benchmarks.md).
+ */
+export const SEGMENT_BUFFER = new ArrayBuffer(SEGMENT_BYTES + LOOKAHEAD_BYTES + 8);

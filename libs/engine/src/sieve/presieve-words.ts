@@ -1,4 +1,8 @@
+import { SEGMENT_BUFFER } from './layout';
 import { RESIDUES } from './wheel30';
+
+// The segment as a module constant (see SEGMENT_BUFFER: why not a parameter).
+const WORDS = new Int32Array(SEGMENT_BUFFER);
 
 /**
  * A word pattern for a few primes: word t packs sieve bytes 4t … 4t+3 (mod the period) where bit i
@@ -49,8 +53,9 @@ export const PATTERN_PRIMES: readonly number[] = [7, 11, 13, 17, 19, 23, 29, 31,
 /** Sieve bytes holding PATTERN_PRIMES (they are below 60). */
 export const PATTERN_PRIMES_BYTES = 2;
 
-/** ANDs the word patterns into the first `words` words of a segment starting at sieve byte K0. */
-export function applyWordPatterns(u32: Uint32Array, words: number, K0: number): void {
+/** ANDs the word patterns into the first `words` words of the segment, which starts at sieve byte K0. */
+export function applyWordPatterns(words: number, K0: number): void {
+  const u32 = WORDS;
   const [A, B] = WORD_PATTERNS as [WordPattern, WordPattern];
   const wa = A.words, pa = A.period, wb = B.words, pb = B.period;
   let ta = wordIndex(A, K0);

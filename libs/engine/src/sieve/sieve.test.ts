@@ -3,6 +3,7 @@ import { EngineError } from '../errors';
 import { combinePrimeBlockList, combinePrimeBlocks } from './combine';
 import type { PrimeBlock } from './prime-block';
 import { primeBlockFromJson, primeBlockToJson } from './prime-block-json';
+import { MAX_PATTERN_DIAMETER } from './pattern';
 import { countConstellation, countPrimes, primeGapStatistics, splitSieveRange } from './queries';
 import { sievePrimeBlock } from './range';
 import { isPrimeByTrialDivision, isPrimeMillerRabin, naivePrimes } from '../../test/naive-primes';
@@ -96,6 +97,17 @@ describe('input checks', () => {
   ])('rejects bad input %#', (f, message) => {
     expect(f).toThrow(EngineError);
     expect(f).toThrow(message);
+  });
+  it('counts a pattern of the widest accepted diameter across segments (its look-ahead fits the buffer)', () => {
+    // {0, 4, 10^6}: n, n + 4, n + 10^6 all prime; checked against a plain unsegmented sieve.
+    const H = [0, 4, MAX_PATTERN_DIAMETER];
+    const to = 31_000_000;
+    const isP = new Uint8Array(to + 1).fill(1, 2);
+    for (let p = 2; p * p <= to; p++) if (isP[p]) for (let m = p * p; m <= to; m += p) isP[m] = 0;
+    let expected = 0;
+    for (let n = 2; n + MAX_PATTERN_DIAMETER <= to; n++) if (isP[n] && isP[n + 4] && isP[n + MAX_PATTERN_DIAMETER]) expected++;
+    expect(expected).toBeGreaterThan(1000);
+    expect(countConstellation(H, 0, to).count).toBe(expected);
   });
   it('accepts decimal strings with an exponent, and finds the primes near 10^15', () => {
     expect(countPrimes('0', '1e3')).toBe(168);

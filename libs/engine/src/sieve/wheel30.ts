@@ -11,24 +11,6 @@ export const RESIDUE_BIT: Int8Array = (() => {
   return t;
 })();
 
-/** Number of 1 bits in words [0, n) of u32: three words share one reduction (nibble sums ≤ 12). */
-export function popcountWords(u32: Uint32Array, n: number): number {
-  let total = 0;
-  let w = 0;
-  for (; w + 3 <= n; w += 3) {
-    let a = u32[w]!, b = u32[w + 1]!, c = u32[w + 2]!;
-    a -= (a >>> 1) & 0x55555555;
-    b -= (b >>> 1) & 0x55555555;
-    c -= (c >>> 1) & 0x55555555;
-    let s = (a & 0x33333333) + ((a >>> 2) & 0x33333333) + (b & 0x33333333) + ((b >>> 2) & 0x33333333);
-    s += (c & 0x33333333) + ((c >>> 2) & 0x33333333);
-    s = (s & 0x0f0f0f0f) + ((s >>> 4) & 0x0f0f0f0f);
-    total += Math.imul(s, 0x01010101) >>> 24;
-  }
-  for (; w < n; w++) total += popcount32(u32[w]!);
-  return total;
-}
-
 /** Number of 1 bits of a 32-bit word. */
 export function popcount32(x: number): number {
   x = x - ((x >>> 1) & 0x55555555);
