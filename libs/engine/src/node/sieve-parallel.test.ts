@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { EngineError } from '../errors';
 import { primeBlockToJson, sievePrimeBlock } from '../sieve';
-import { sievePrimeBlockParallel } from './sieve-parallel';
+import { closeSieveWorkers, sievePrimeBlockParallel } from './sieve-parallel';
 
 describe('parallel sieve over worker threads', () => {
   it('equals the one-pass block (π, gaps, patterns) on 2 workers', async () => {
@@ -18,6 +18,19 @@ describe('parallel sieve over worker threads', () => {
   });
   it('counts π(10^8) = 5761455 (OEIS A006880) with the default split', async () => {
     expect((await sievePrimeBlockParallel(0, '1e8', { workers: 2 })).primeCount).toBe(5761455);
+  });
+  it('reuses its workers across calls, and starts new ones after a cancel or a closed pool', async () => {
+    const twins = async () => (await sievePrimeBlockParallel(0, '1e8', { workers: 2, patterns: [[0, 2]] })).patterns[0]!.count;
+    // 440 312 twin pairs below 10^8 (OEIS A007508), three times: fresh, reused, and after closing.
+    expect(await twins()).toBe(440312);
+    expect(await twins()).toBe(440312);
+    const controller = new AbortController();
+    const run = sievePrimeBlockParallel(0, '1e11', { workers: 2, signal: controller.signal });
+    setTimeout(() => controller.abort(), 100);
+    await expect(run).rejects.toThrow(/cancelled/);
+    expect(await twins()).toBe(440312);
+    await closeSieveWorkers();
+    expect(await twins()).toBe(440312);
   });
   it('stops the workers when cancelled', async () => {
     const controller = new AbortController();

@@ -20,7 +20,7 @@ import type { SieveTask, SieveTaskReply } from './sieve-messages';
 export interface ParallelSieveOptions extends SieveOptions {
   /** Worker threads (default: all cores). 1 still uses one worker thread. */
   readonly workers?: number;
-  /** Blocks the range is cut into (default: 8 per worker, fewer for short ranges). */
+  /** Blocks the range is cut into (default: 32 per worker, fewer for short ranges). */
   readonly blocks?: number;
   /** Called after each finished block with the number done and the total. */
   readonly onProgress?: (done: number, total: number) => void;
@@ -42,6 +42,42 @@ export function sieveWorkerFile(): string {
   const found = candidates.find((f) => existsSync(f));
   if (!found) throw new EngineError('limit', `sieve worker not built (looked for ${candidates.join(', ')}); run tsc -b`);
   return found;
+}
+
+// Workers are kept between calls (started once per process: about 70 ms each, and their compiled
+// code is warm). Idle workers are unref'd, so they never keep the process alive.
+const idle: Worker[] = [];
+
+function takeWorkers(n: number): Worker[] {
+  const taken = idle.splice(0, n);
+  if (taken.length < n) {
+    const file = sieveWorkerFile();
+    while (taken.length < n) taken.push(new Worker(file));
+  }
+  for (const w of taken) {
+    w.removeAllListeners('exit');
+    w.ref();
+  }
+  return taken;
+}
+
+function returnWorkers(workers: readonly Worker[]): void {
+  for (const w of workers) {
+    w.removeAllListeners('message');
+    w.removeAllListeners('error');
+    w.removeAllListeners('exit');
+    w.unref();
+    w.once('exit', () => {
+      const i = idle.indexOf(w);
+      if (i >= 0) idle.splice(i, 1);
+    });
+    idle.push(w);
+  }
+}
+
+/** Stops the idle sieve workers (they are started again when needed). */
+export async function closeSieveWorkers(): Promise<void> {
+  await Promise.all(idle.splice(0).map((w) => w.terminate()));
 }
 
 /**
@@ -68,15 +104,16 @@ export async function sievePrimeBlockParallel(
     options.onProgress?.(1, 1);
     return block;
   }
-  let parts = options.blocks ?? workers * 8;
+  // Many small blocks: the last ones finish close together on every worker.
+  let parts = options.blocks ?? workers * 32;
   if (!Number.isSafeInteger(parts) || parts < 1) throw inputError(`block count ${parts} is not a positive integer`);
   if (options.blocks === undefined && BigInt(parts) * MIN_BLOCK > length) parts = Math.max(1, Number(length / MIN_BLOCK));
   const ranges = splitSieveRange(range.from, range.to, parts);
   const results: PrimeBlock[] = new Array(ranges.length);
   const cancelled = (): EngineError => new EngineError('limit', `sieve of [${range.from}, ${range.to}] cancelled`);
   if (options.signal?.aborted) throw cancelled();
-  const file = sieveWorkerFile();
-  const pool = Array.from({ length: Math.min(workers, ranges.length) }, () => new Worker(file));
+  const pool = takeWorkers(Math.min(workers, ranges.length));
+  let failed = false;
   let nextTask = 0;
   let done = 0;
   try {
@@ -106,8 +143,13 @@ export async function sievePrimeBlockParallel(
           }),
       ),
     );
+  } catch (e) {
+    failed = true;
+    throw e;
   } finally {
-    await Promise.all(pool.map((w) => w.terminate()));
+    // A worker may still be busy after an error or a cancel: stop those; keep the others.
+    if (failed) await Promise.all(pool.map((w) => w.terminate()));
+    else returnWorkers(pool);
   }
   return combinePrimeBlockList(results);
 }
