@@ -2,7 +2,7 @@ import { isSmallPrime } from '../primes/small-primes';
 import type { CompiledPattern } from './pattern';
 import { LargePrimes } from './buckets';
 import { clearOutside, countPattern, countPrimes, countPrimesAndTwins, firstBitValue, lastBitValue, locateTwins } from './count';
-import { activate, crossLookahead, crossRange } from './cross';
+import { activate, crossRange, endSegment } from './cross';
 import { L1_BYTES, LARGE_PRIME_BOUND, LOOKAHEAD_BYTES, SEGMENT_BUFFER, SEGMENT_BYTES, SMALL_PRIME_BOUND } from './layout';
 import { PRESIEVE_PERIOD, presievePattern } from './presieve';
 import { LAST_PATTERN_PRIME, PATTERN_PRIMES, PATTERN_PRIMES_BYTES, applyWordPatterns } from './presieve-words';
@@ -190,8 +190,7 @@ export function sieveCore(
       counted = upTo;
     }
     crossRange(next, masks, sieving, firstSieving, 0, small, len, 0);
-    if (L > len) crossLookahead(next, masks, sieving, firstSieving, active, len, L);
-    for (let i = 0, n = active << 3; i < n; i++) next[i] -= len;
+    endSegment(next, masks, sieving, firstSieving, active, len, L);
 
     // Primes of this segment: start bytes [0, len).
     segCount += twins ? countPrimesAndTwins(counted, words, twins) : countPrimes(counted, words);

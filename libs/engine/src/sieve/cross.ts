@@ -38,14 +38,17 @@ export function crossRange(
       J += p;
     }
     j0 = J; j1 = J + d1; j2 = J + d2; j3 = J + d3; j4 = J + d4; j5 = J + d5; j6 = J + d6; j7 = J + d7;
-    while (j0 < end) { buf[j0] &= m0; j0 += p; }
-    while (j1 < end) { buf[j1] &= m1; j1 += p; }
-    while (j2 < end) { buf[j2] &= m2; j2 += p; }
-    while (j3 < end) { buf[j3] &= m3; j3 += p; }
-    while (j4 < end) { buf[j4] &= m4; j4 += p; }
-    while (j5 < end) { buf[j5] &= m5; j5 += p; }
-    while (j6 < end) { buf[j6] &= m6; j6 += p; }
-    while (j7 < end) { buf[j7] &= m7; j7 += p; }
+    // The eight progressions lie within p bytes of each other, so each needs at most one more step
+    // (J ≥ end − max d). Taken without branches: whether it is needed is unpredictable. t is −1
+    // when the step is needed, else 0; then the write goes to byte 0 with mask 0xff, a no-op.
+    let t = (j0 - end) >> 31; buf[j0 & t] &= m0 | ~t; j0 += p & t;
+    t = (j1 - end) >> 31; buf[j1 & t] &= m1 | ~t; j1 += p & t;
+    t = (j2 - end) >> 31; buf[j2 & t] &= m2 | ~t; j2 += p & t;
+    t = (j3 - end) >> 31; buf[j3 & t] &= m3 | ~t; j3 += p & t;
+    t = (j4 - end) >> 31; buf[j4 & t] &= m4 | ~t; j4 += p & t;
+    t = (j5 - end) >> 31; buf[j5 & t] &= m5 | ~t; j5 += p & t;
+    t = (j6 - end) >> 31; buf[j6 & t] &= m6 | ~t; j6 += p & t;
+    t = (j7 - end) >> 31; buf[j7 & t] &= m7 | ~t; j7 += p & t;
     next[o] = j0 - shift; next[o + 1] = j1 - shift; next[o + 2] = j2 - shift; next[o + 3] = j3 - shift;
     next[o + 4] = j4 - shift; next[o + 5] = j5 - shift; next[o + 6] = j6 - shift; next[o + 7] = j7 - shift;
   }
@@ -84,8 +87,12 @@ export function activate(
   return active;
 }
 
-/** Crosses off the look-ahead bytes [len, L) (they are sieved again as part of the next segment). */
-export function crossLookahead(
+/**
+ * Ends a segment of `len` bytes for the active primes: crosses off the look-ahead bytes [len, L)
+ * (they are sieved again as part of the next segment) and makes the positions relative to the next
+ * segment, in one pass over the progressions.
+ */
+export function endSegment(
   next: Int32Array,
   masks: Uint8Array,
   sieving: Uint32Array,
@@ -95,12 +102,19 @@ export function crossLookahead(
   L: number,
 ): void {
   const buf = BUF;
+  if (L === len) {
+    for (let k = 0, n = active << 3; k < n; k++) next[k] -= len;
+    return;
+  }
   for (let i = 0; i < active; i++) {
     const p = sieving[first + i]!;
-    const o = i << 3;
-    for (let c = 0; c < 8; c++) {
-      const m = masks[o + c]!;
-      for (let j = next[o + c]!; j < L; j += p) buf[j] &= m;
+    for (let k = i << 3, e = k + 8; k < e; k++) {
+      const j0 = next[k]!;
+      next[k] = j0 - len;
+      if (j0 < L) {
+        const m = masks[k]!;
+        for (let j = j0; j < L; j += p) buf[j] &= m;
+      }
     }
   }
 }
