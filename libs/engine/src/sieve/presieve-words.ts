@@ -45,7 +45,18 @@ export function wordIndex(pattern: WordPattern, byteIndex: number): number {
 }
 
 // Primes 23 … 43 are removed by AND-ing word patterns (cheaper than crossing them off).
-const WORD_PATTERNS: readonly WordPattern[] = [wordPattern([23, 29, 31]), wordPattern([37, 41, 43])];
+const A = wordPattern([23, 29, 31]);
+const B = wordPattern([37, 41, 43]);
+/** Words AND-ed per chunk: the tables are stored that much beyond their period, so a chunk never wraps. */
+const CHUNK_WORDS = 4096;
+const extend = (pattern: WordPattern): Uint32Array => {
+  const words = new Uint32Array(pattern.period + CHUNK_WORDS);
+  for (let t = 0; t < words.length; t++) words[t] = pattern.words[t % pattern.period]!;
+  return words;
+};
+// Module constants (as the segment views): the hot loop then has no table loads to repeat.
+const A_WORDS = extend(A);
+const B_WORDS = extend(B);
 /** The largest prime removed by a pattern (crossing off starts after it). */
 export const LAST_PATTERN_PRIME = 43;
 /** The primes the byte and word patterns remove together with their multiples (to be put back). */
@@ -56,13 +67,14 @@ export const PATTERN_PRIMES_BYTES = 2;
 /** ANDs the word patterns into the first `words` words of the segment, which starts at sieve byte K0. */
 export function applyWordPatterns(words: number, K0: number): void {
   const u32 = WORDS;
-  const [A, B] = WORD_PATTERNS as [WordPattern, WordPattern];
-  const wa = A.words, pa = A.period, wb = B.words, pb = B.period;
+  const a = A_WORDS;
+  const b = B_WORDS;
   let ta = wordIndex(A, K0);
   let tb = wordIndex(B, K0);
-  for (let w = 0; w < words; w++) {
-    u32[w]! &= wa[ta]! & wb[tb]!;
-    if (++ta === pa) ta = 0;
-    if (++tb === pb) tb = 0;
+  for (let c0 = 0; c0 < words; c0 += CHUNK_WORDS) {
+    const n = Math.min(CHUNK_WORDS, words - c0);
+    for (let k = 0; k < n; k++) u32[c0 + k]! &= a[ta + k]! & b[tb + k]!;
+    ta = (ta + n) % A.period;
+    tb = (tb + n) % B.period;
   }
 }
