@@ -9,11 +9,16 @@ import { levelChunk } from './jobs/level-chunk.job';
 import { plan } from './jobs/plan.job';
 import { runCell } from './jobs/run-cell.job';
 import { ensureQueues } from './queue/job-options';
+import { RunWakeup } from './queue/run-wakeup';
 import type { RunnerConfig } from './runner-config';
 import type { SiftExecutor } from './sift/sift-executor';
 
 /** SQLSTATE raised by the database trigger that freezes locked notebooks (review feature). */
 const LOCKED_NOTEBOOK = 'CRLCK';
+
+/** After a run was queued: fetches retried this many times, this far apart, before the idle poll. */
+const EAGER_RETRIES = 6;
+const EAGER_RETRY_MS = 5;
 
 /** Queues in the order a free slot looks at them: people waiting on a cell come first. */
 const HANDLERS: Array<[QueueName, JobHandler<never>]> = [
@@ -41,6 +46,12 @@ export class Runner {
   private stopping = false;
   private wake: (() => void) | null = null;
   private loop: Promise<void> | null = null;
+  private readonly wakeup: RunWakeup;
+  /**
+   * Short retries left after a run was queued: its job is sent just after the run row commits (the
+   * notification's moment), so the first fetch may come a few milliseconds too early.
+   */
+  private eager = 0;
 
   constructor(
     private readonly cfg: RunnerConfig,
@@ -58,6 +69,14 @@ export class Runner {
     });
     this.boss.on('error', (err) => this.log(`queue: ${err.message}`));
     this.heartbeat = new Heartbeat(this.db, cfg);
+    this.wakeup = new RunWakeup(
+      cfg.databaseUrl,
+      () => {
+        this.eager = EAGER_RETRIES;
+        this.wake?.();
+      },
+      (m) => this.log(m),
+    );
     this.ctx = { db: this.db, boss: this.boss, cfg, executor, log: (m) => this.log(m) };
   }
 
@@ -69,6 +88,7 @@ export class Runner {
     await this.boss.start();
     await ensureQueues(this.boss, this.cfg);
     await this.heartbeat.start();
+    await this.wakeup.start();
     this.loop = this.run();
     this.log(`started with ${this.cfg.slots} slot(s), job expiry ${this.cfg.jobExpireSeconds} s`);
   }
@@ -76,7 +96,8 @@ export class Runner {
   private async run(): Promise<void> {
     while (!this.stopping) {
       if (this.active < this.cfg.slots) {
-        const next = await this.fetchNext().catch((err: Error) => {
+        // While waiting for a just-queued run's job, only its queue is asked (one query, not five).
+        const next = await this.fetchNext(this.eager > 0 ? HANDLERS.slice(0, 1) : HANDLERS).catch((err: Error) => {
           this.log(`fetch failed: ${err.message}`);
           return null;
         });
@@ -89,16 +110,20 @@ export class Runner {
           continue;
         }
       }
+      const wait = this.eager > 0 ? EAGER_RETRY_MS : this.cfg.pollMs;
+      if (this.eager > 0) this.eager--;
       await new Promise<void>((resolve) => {
         this.wake = resolve;
-        setTimeout(resolve, this.cfg.pollMs);
+        setTimeout(resolve, wait);
       });
       this.wake = null;
     }
   }
 
-  private async fetchNext(): Promise<{ queue: QueueName; handler: JobHandler<never>; job: PgBoss.JobWithMetadata<never> } | null> {
-    for (const [queue, handler] of HANDLERS) {
+  private async fetchNext(
+    handlers: ReadonlyArray<[QueueName, JobHandler<never>]>,
+  ): Promise<{ queue: QueueName; handler: JobHandler<never>; job: PgBoss.JobWithMetadata<never> } | null> {
+    for (const [queue, handler] of handlers) {
       const jobs = (await this.boss.fetch(queue, { batchSize: 1, includeMetadata: true })) as PgBoss.JobWithMetadata<never>[] | null;
       if (jobs && jobs.length) return { queue, handler, job: jobs[0] };
     }
@@ -172,6 +197,7 @@ export class Runner {
       await this.boss.fail(queue, id, { message: `runner ${this.cfg.runnerId} stopped` }).catch(() => undefined);
     }
     await this.heartbeat.stop();
+    await this.wakeup.stop();
     await this.boss.stop({ graceful: false, close: true, wait: true }).catch(() => undefined);
     await this.ctx.executor.close();
     await this.db.end();
