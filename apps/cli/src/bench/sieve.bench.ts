@@ -26,7 +26,7 @@ function referenceSeconds(bound: string): number | null {
 }
 
 /** Rounds of each measurement: the machine is shared and noisy, so the best of them is reported (and the median). */
-const ROUNDS = 3;
+const ROUNDS = 5;
 
 interface Series {
   best: number;

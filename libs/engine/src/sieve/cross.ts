@@ -4,6 +4,10 @@ import { CLASS_STEP, firstCofactor, PRODUCT_MASK, PRODUCT_RESIDUE } from './whee
 
 // The segment as a module constant (see SEGMENT_BUFFER: why not a parameter).
 const BUF = new Uint8Array(SEGMENT_BUFFER);
+// Every index in the main loop is masked with this: V8 then knows it lies inside BUF and drops the
+// bounds check of each crossing (the mask changes no index: all are below SEGMENT_BUFFER's length).
+const INDEX_MASK = 0xfffff;
+if (BUF.length <= INDEX_MASK) throw new Error('internal: the segment buffer must be longer than INDEX_MASK');
 
 /**
  * Crosses off in the segment buffer, for the sieving primes i0 ≤ i < i1, every multiple whose byte
@@ -33,8 +37,9 @@ export function crossRange(
     const stop = end - Math.max(0, d1, d2, d3, d4, d5, d6, d7);
     let J = j0;
     while (J < stop) {
-      buf[J] &= m0; buf[J + d1] &= m1; buf[J + d2] &= m2; buf[J + d3] &= m3;
-      buf[J + d4] &= m4; buf[J + d5] &= m5; buf[J + d6] &= m6; buf[J + d7] &= m7;
+      buf[J & INDEX_MASK] &= m0; buf[(J + d1) & INDEX_MASK] &= m1; buf[(J + d2) & INDEX_MASK] &= m2;
+      buf[(J + d3) & INDEX_MASK] &= m3; buf[(J + d4) & INDEX_MASK] &= m4; buf[(J + d5) & INDEX_MASK] &= m5;
+      buf[(J + d6) & INDEX_MASK] &= m6; buf[(J + d7) & INDEX_MASK] &= m7;
       J += p;
     }
     j0 = J; j1 = J + d1; j2 = J + d2; j3 = J + d3; j4 = J + d4; j5 = J + d5; j6 = J + d6; j7 = J + d7;

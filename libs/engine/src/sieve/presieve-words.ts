@@ -69,12 +69,16 @@ export function applyWordPatterns(words: number, K0: number): void {
   const u32 = WORDS;
   const a = A_WORDS;
   const b = B_WORDS;
-  let ta = wordIndex(A, K0);
-  let tb = wordIndex(B, K0);
+  // `| 0` keeps the positions small integers (they stay below the periods); left to themselves they
+  // become floating-point numbers in V8, and every table index a conversion.
+  const pa = A.period | 0;
+  const pb = B.period | 0;
+  let ta = wordIndex(A, K0) | 0;
+  let tb = wordIndex(B, K0) | 0;
   for (let c0 = 0; c0 < words; c0 += CHUNK_WORDS) {
-    const n = Math.min(CHUNK_WORDS, words - c0);
+    const n = Math.min(CHUNK_WORDS, words - c0) | 0;
     for (let k = 0; k < n; k++) u32[c0 + k]! &= a[ta + k]! & b[tb + k]!;
-    ta = (ta + n) % A.period;
-    tb = (tb + n) % B.period;
+    ta = ((ta + n) % pa) | 0;
+    tb = ((tb + n) % pb) | 0;
   }
 }
