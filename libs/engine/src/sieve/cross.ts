@@ -36,7 +36,19 @@ export function crossRange(
     const d1 = j1 - j0, d2 = j2 - j0, d3 = j3 - j0, d4 = j4 - j0, d5 = j5 - j0, d6 = j6 - j0, d7 = j7 - j0;
     const stop = end - Math.max(0, d1, d2, d3, d4, d5, d6, d7);
     let J = j0;
-    while (J < stop) {
+    // Two periods per turn while they fit (half the loop overhead), then at most one more.
+    const stop2 = stop - p;
+    while (J < stop2) {
+      const K = J + p;
+      buf[J & INDEX_MASK] &= m0; buf[(J + d1) & INDEX_MASK] &= m1; buf[(J + d2) & INDEX_MASK] &= m2;
+      buf[(J + d3) & INDEX_MASK] &= m3; buf[(J + d4) & INDEX_MASK] &= m4; buf[(J + d5) & INDEX_MASK] &= m5;
+      buf[(J + d6) & INDEX_MASK] &= m6; buf[(J + d7) & INDEX_MASK] &= m7;
+      buf[K & INDEX_MASK] &= m0; buf[(K + d1) & INDEX_MASK] &= m1; buf[(K + d2) & INDEX_MASK] &= m2;
+      buf[(K + d3) & INDEX_MASK] &= m3; buf[(K + d4) & INDEX_MASK] &= m4; buf[(K + d5) & INDEX_MASK] &= m5;
+      buf[(K + d6) & INDEX_MASK] &= m6; buf[(K + d7) & INDEX_MASK] &= m7;
+      J = K + p;
+    }
+    if (J < stop) {
       buf[J & INDEX_MASK] &= m0; buf[(J + d1) & INDEX_MASK] &= m1; buf[(J + d2) & INDEX_MASK] &= m2;
       buf[(J + d3) & INDEX_MASK] &= m3; buf[(J + d4) & INDEX_MASK] &= m4; buf[(J + d5) & INDEX_MASK] &= m5;
       buf[(J + d6) & INDEX_MASK] &= m6; buf[(J + d7) & INDEX_MASK] &= m7;
