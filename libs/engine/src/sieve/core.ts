@@ -64,7 +64,9 @@ export function sieveCore(
   sieving: Uint32Array,
   hooks?: WorkHooks,
 ): CoreResult {
-  const pat: CorePatternResult[] = patterns.map(() => ({ count: 0, first: -1, last: -1 }));
+  // Count, first and last of pattern i at 3i, 3i + 1, 3i + 2 (see countPrimesAndTwins: why not objects).
+  const stats = new Float64Array(3 * patterns.length);
+  for (let i = 0; i < patterns.length; i++) stats[3 * i + 1] = stats[3 * i + 2] = -1;
   let histogram = new Float64Array(wantGaps ? 2048 : 0);
   const records: Array<{ gap: number; after: number }> = [];
   let lastSeen = -1; // last prime met so far (for gaps)
@@ -102,10 +104,9 @@ export function sieveCore(
     for (const n of [2, 3, 5]) {
       if (n < a || n + cp.diameter > b) continue;
       if (cp.offsets.every((h) => isSmallPrime(n + h))) {
-        const r = pat[i]!;
-        r.count++;
-        if (r.first < 0) r.first = n;
-        r.last = n;
+        stats[3 * i]!++;
+        if (stats[3 * i + 1]! < 0) stats[3 * i + 1] = n;
+        stats[3 * i + 2] = n;
       }
     }
   });
@@ -179,22 +180,23 @@ export function sieveCore(
     crossRange(next, masks, sieving, firstSieving, small, active, len, 0);
     if (large) large.crossSegment(base0, done, len, L);
     const words = len >> 2;
-    const twins = twinIndex >= 0 ? pat[twinIndex]! : null;
-    const twinsBefore = twins ? twins.count : 0;
+    const twins = twinIndex >= 0;
+    const tw = 3 * twinIndex;
+    const twinsBefore = twins ? stats[tw]! : 0;
     let segCount = 0;
     let counted = 0;
     for (let piece = L1_BYTES; piece < len; piece += L1_BYTES) {
       crossRange(next, masks, sieving, firstSieving, 0, small, piece, 0);
       const upTo = (piece >> 2) - 1;
-      segCount += twins ? countPrimesAndTwins(counted, upTo, twins) : countPrimes(counted, upTo);
+      segCount += twins ? countPrimesAndTwins(counted, upTo, stats, tw) : countPrimes(counted, upTo);
       counted = upTo;
     }
     crossRange(next, masks, sieving, firstSieving, 0, small, len, 0);
     endSegment(next, masks, sieving, firstSieving, active, len, L);
 
     // Primes of this segment: start bytes [0, len).
-    segCount += twins ? countPrimesAndTwins(counted, words, twins) : countPrimes(counted, words);
-    if (twins && twins.count > twinsBefore) locateTwins(words, base, twins);
+    segCount += twins ? countPrimesAndTwins(counted, words, stats, tw) : countPrimes(counted, words);
+    if (twins && stats[tw]! > twinsBefore) locateTwins(words, base, stats, tw);
     if (segCount > 0) {
       primeCount += segCount;
       if (firstPrime < 0) firstPrime = base + firstBitValue(0, words);
@@ -220,7 +222,7 @@ export function sieveCore(
         }
       }
     }
-    for (let i = 0; i < patterns.length; i++) if (i !== twinIndex) countPattern(words, base, patterns[i]!, pat[i]!);
+    for (let i = 0; i < patterns.length; i++) if (i !== twinIndex) countPattern(words, base, patterns[i]!, stats, 3 * i);
     done += len;
   }
   hooks?.onProgress?.(1, what);
@@ -231,7 +233,7 @@ export function sieveCore(
       primeCount,
       firstPrime,
       lastPrime,
-      patterns: pat,
+      patterns: patterns.map((_, i) => ({ count: stats[3 * i]!, first: stats[3 * i + 1]!, last: stats[3 * i + 2]! })),
       gaps: wantGaps ? { histogram, records } : null,
     };
   }

@@ -1,5 +1,4 @@
 // Reading a sieved segment: range masking, first/last set bits, pattern occurrences.
-import type { CorePatternResult } from './core';
 import type { CompiledPattern } from './pattern';
 import { SEGMENT_BUFFER } from './layout';
 import { RESIDUES, WORD_BIT_VALUE, popcount32 } from './wheel30';
@@ -75,9 +74,13 @@ export function countPrimes(from: number, to: number): number {
 /**
  * One pass over the words [from, to) counting the primes and the twin pairs that start there; reads
  * word `to` too, which must be final. Returns the number of primes and adds the twins to
- * `twins.count` (their first and last are found by locateTwins, so the loop has no bookkeeping).
+ * `stats[at]` (their first and last are found by locateTwins, so the loop has no bookkeeping).
+ * Pattern statistics live in a Float64Array — count, first, last at `at`, `at + 1`, `at + 2` — not
+ * in objects: a field of an object changing from a small integer to a large one changes the
+ * object's shape, and V8 threw the optimized counting code away on every new sieve call (measured:
+ * 25·10^6 instructions per block).
  */
-export function countPrimesAndTwins(from: number, to: number, twins: CorePatternResult): number {
+export function countPrimesAndTwins(from: number, to: number, stats: Float64Array, at: number): number {
   const u32 = WORDS;
   let primes = 0;
   let count = 0;
@@ -115,29 +118,29 @@ export function countPrimesAndTwins(from: number, to: number, twins: CorePattern
     primes += popcount32(P);
     count += popcount32(P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494);
   }
-  twins.count += count;
+  stats[at] += count;
   return primes;
 }
 
-/** Sets the first twin (when unset) and the last one from the words [0, words), which hold one. */
-export function locateTwins(words: number, base: number, twins: CorePatternResult): void {
-  if (twins.first < 0) {
+/** Sets the first twin (stats[at + 1], when still −1) and the last one (stats[at + 2]) from the words [0, words), which hold one. */
+export function locateTwins(words: number, base: number, stats: Float64Array, at: number): void {
+  if (stats[at + 1]! < 0) {
     let w = 0;
     while (twinBits(w) === 0) w++;
     const occ = twinBits(w);
-    twins.first = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(occ & -occ)]!;
+    stats[at + 1] = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(occ & -occ)]!;
   }
   let w = words - 1;
   while (twinBits(w) === 0) w--;
-  twins.last = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(twinBits(w))]!;
+  stats[at + 2] = base + 120 * w + WORD_BIT_VALUE[31 - Math.clz32(twinBits(w))]!;
 }
 
 /**
  * Counts the occurrences of one pattern whose start n lies in the bytes [0, 4·words) of the segment,
- * and updates its first/last occurrence. Occurrence bits are built per 32-bit word: bit c of each
+ * and updates its count, first and last occurrence at stats[at], stats[at + 1], stats[at + 2]. Occurrence bits are built per 32-bit word: bit c of each
  * byte says that n = 30k + RESIDUES[c] starts an occurrence.
  */
-export function countPattern(words: number, base: number, cp: CompiledPattern, out: CorePatternResult): void {
+export function countPattern(words: number, base: number, cp: CompiledPattern, stats: Float64Array, at: number): void {
   const u32 = WORDS;
   let count = 0;
   let firstWord = -1;
@@ -190,7 +193,7 @@ export function countPattern(words: number, base: number, cp: CompiledPattern, o
     }
   }
   if (count === 0) return;
-  out.count += count;
-  if (out.first < 0) out.first = base + 120 * firstWord + WORD_BIT_VALUE[31 - Math.clz32(firstBits & -firstBits)]!;
-  out.last = base + 120 * lastWord + WORD_BIT_VALUE[31 - Math.clz32(lastBits)]!;
+  stats[at] += count;
+  if (stats[at + 1]! < 0) stats[at + 1] = base + 120 * firstWord + WORD_BIT_VALUE[31 - Math.clz32(firstBits & -firstBits)]!;
+  stats[at + 2] = base + 120 * lastWord + WORD_BIT_VALUE[31 - Math.clz32(lastBits)]!;
 }
