@@ -16,8 +16,12 @@ import type { SiftExecutor } from './sift/sift-executor';
 /** SQLSTATE raised by the database trigger that freezes locked notebooks (review feature). */
 const LOCKED_NOTEBOOK = 'CRLCK';
 
-/** After a run was queued: fetches retried this many times, this far apart, before the idle poll. */
-const EAGER_RETRIES = 6;
+/**
+ * After a run was queued: fetches retried this many times before the idle poll, 5, 10, 20, 40 ms
+ * apart (every idle runner hears the notification; only one gets the job, so the others should not
+ * keep asking).
+ */
+const EAGER_RETRIES = 4;
 const EAGER_RETRY_MS = 5;
 
 /** Queues in the order a free slot looks at them: people waiting on a cell come first. */
@@ -110,7 +114,7 @@ export class Runner {
           continue;
         }
       }
-      const wait = this.eager > 0 ? EAGER_RETRY_MS : this.cfg.pollMs;
+      const wait = this.eager > 0 ? EAGER_RETRY_MS << (EAGER_RETRIES - this.eager) : this.cfg.pollMs;
       if (this.eager > 0) this.eager--;
       await new Promise<void>((resolve) => {
         this.wake = resolve;
