@@ -9,10 +9,12 @@ interface Props {
   canRun: boolean;
   runningAll: boolean;
   onRunAll: () => void;
+  /** Opens the notebook settings; the button is shown only when given (the page passes it to those who may edit). */
+  onEditSettings?: () => void;
   actions?: ReactNode;
 }
 
-export function NotebookHeader({ notebook: nb, canRun, runningAll, onRunAll, actions }: Props) {
+export function NotebookHeader({ notebook: nb, canRun, runningAll, onRunAll, onEditSettings, actions }: Props) {
   return (
     <Box component="header" sx={{ mb: 2 }}>
       <Box sx={{ display: 'flex', alignItems: 'center', gap: 1.5, flexWrap: 'wrap' }}>
@@ -23,13 +25,14 @@ export function NotebookHeader({ notebook: nb, canRun, runningAll, onRunAll, act
             {runningAll ? 'Queuing…' : 'Run all'}
           </Button>
         )}
+        {onEditSettings && <Button variant="outlined" onClick={onEditSettings}>Settings</Button>}
         <Button variant="outlined" href={`/api/notebooks/${nb.id}/export?format=markdown`} download>Export Markdown</Button>
         <Button variant="outlined" href={`/api/notebooks/${nb.id}/export?format=latex`} download>Export LaTeX</Button>
         {actions}
       </Box>
       {nb.summary && <Typography sx={{ mt: 1, maxWidth: 900 }}>{nb.summary}</Typography>}
       <Typography variant="caption" color="text.secondary" component="p" className="mono" sx={{ mt: 0.5 }}>
-        rev {nb.revision} · owner {nb.owner.displayName} · my role {nb.myRole ?? 'none (admin)'} · updated {formatDateTime(nb.updatedAt)}
+        rev {nb.revision} · owner {nb.owner.displayName} · my role {nb.myRole ?? 'none (admin)'} · {nb.requiredSignoffs} sign-off{nb.requiredSignoffs === 1 ? '' : 's'} required · updated {formatDateTime(nb.updatedAt)}
         {nb.tags.length > 0 && ` · ${nb.tags.join(', ')}`}
       </Typography>
       <Typography variant="caption" color="text.secondary" component="p">

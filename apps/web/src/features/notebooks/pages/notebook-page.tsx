@@ -1,6 +1,6 @@
 import type { NotebookView } from '@cribra/contracts';
 import { Alert, Box } from '@mui/material';
-import type { ReactNode } from 'react';
+import { type ReactNode, useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { ErrorState } from '../../../components/error-state';
 import { LoadingState } from '../../../components/loading-state';
@@ -12,6 +12,7 @@ import { useRunAll } from '../api/run-all';
 import { useNotebookEvents } from '../api/use-notebook-events';
 import { CellList } from '../components/cell-list';
 import { NotebookHeader } from '../components/notebook-header';
+import { NotebookSettingsDialog } from '../components/notebook-settings-dialog';
 import { canEditCells, canRun } from '../lib/permissions';
 
 interface Props {
@@ -26,6 +27,7 @@ export default function NotebookPage({ sidePanel, headerActions }: Props) {
   const nb = useNotebook(id);
   const me = useCurrentUser();
   const runAll = useRunAll(id);
+  const [settingsOpen, setSettingsOpen] = useState(false);
   useNotebookEvents(id);
   useDocumentTitle(nb.data?.title ?? 'Notebook');
 
@@ -34,16 +36,20 @@ export default function NotebookPage({ sidePanel, headerActions }: Props) {
   const notebook = nb.data;
   const who = { myRole: notebook.myRole, status: notebook.status, siteRole: me.data?.siteRole };
   const panel = sidePanel?.(notebook);
+  const canEdit = canEditCells(who);
 
   return (
     <Box sx={{ display: 'grid', gridTemplateColumns: panel ? 'minmax(0, 1fr) 340px' : 'minmax(0, 1fr)', gap: 3, alignItems: 'start' }}>
       <Box component="article" aria-label="Notebook">
-        <NotebookHeader notebook={notebook} canRun={canRun(who)} runningAll={runAll.isPending} onRunAll={() => runAll.mutate()} actions={headerActions?.(notebook)} />
+        <NotebookHeader notebook={notebook} canRun={canRun(who)} runningAll={runAll.isPending} onRunAll={() => runAll.mutate()}
+          onEditSettings={canEdit ? () => setSettingsOpen(true) : undefined} actions={headerActions?.(notebook)} />
+        {/* Kept mounted while open even if the notebook gets locked meanwhile, so the input is not lost. */}
+        {settingsOpen && <NotebookSettingsDialog notebook={notebook} onClose={() => setSettingsOpen(false)} />}
         {notebook.status === 'locked' && (
           <Alert severity="info" sx={{ mb: 2 }}>This notebook is locked: it opens read-only, as it was signed off.</Alert>
         )}
         {runAll.isError && <Alert severity="error" sx={{ mb: 2 }}>{errorMessage(runAll.error)}</Alert>}
-        <CellList notebook={notebook} canEdit={canEditCells(who)} canRun={canRun(who)} />
+        <CellList notebook={notebook} canEdit={canEdit} canRun={canRun(who)} />
       </Box>
       {panel && <Box component="aside" aria-label="Collaboration" sx={{ position: 'sticky', top: 64 }}>{panel}</Box>}
     </Box>
