@@ -3,6 +3,7 @@ import { Alert, Button, Dialog, DialogActions, DialogContent, DialogTitle, Stack
 import { type FormEvent, useState } from 'react';
 import { errorMessage } from '../../../lib/api-error';
 import { useCreateNotebook } from '../api/create-notebook';
+import { parseTagInput, tagProblem } from '../lib/notebook-settings';
 
 interface Props {
   open: boolean;
@@ -10,20 +11,22 @@ interface Props {
   onCreated: (nb: NotebookView) => void;
 }
 
-const parseTags = (text: string) => [...new Set(text.split(',').map((t) => t.trim()).filter(Boolean))];
-
 export function CreateNotebookDialog({ open, onClose, onCreated }: Props) {
   const [title, setTitle] = useState('');
   const [summary, setSummary] = useState('');
   const [tags, setTags] = useState('');
   const [problem, setProblem] = useState<string>();
+  const [tagsProblem, setTagsProblem] = useState<string>();
   const create = useCreateNotebook();
 
   const submit = (e: FormEvent) => {
     e.preventDefault();
+    const badTags = tagProblem(parseTagInput(tags));
+    setTagsProblem(badTags);
     if (!title.trim()) return setProblem('Give the notebook a title.');
     setProblem(undefined);
-    create.mutate({ title: title.trim(), summary: summary.trim(), tags: parseTags(tags) }, { onSuccess: onCreated });
+    if (badTags) return;
+    create.mutate({ title: title.trim(), summary: summary.trim(), tags: parseTagInput(tags) }, { onSuccess: onCreated });
   };
 
   return (
@@ -36,7 +39,8 @@ export function CreateNotebookDialog({ open, onClose, onCreated }: Props) {
             <TextField label="Title" value={title} onChange={(e) => setTitle(e.target.value)} error={!!problem} helperText={problem} autoFocus />
             <TextField label="Summary" value={summary} onChange={(e) => setSummary(e.target.value)} multiline minRows={2}
               helperText="What question the notebook tests." />
-            <TextField label="Tags" value={tags} onChange={(e) => setTags(e.target.value)} helperText="Separated by commas, e.g. twin primes, wheel" />
+            <TextField label="Tags" value={tags} onChange={(e) => setTags(e.target.value)} error={!!tagsProblem}
+              helperText={tagsProblem ?? 'Separated by commas or spaces, e.g. twin-primes, wheel'} />
           </Stack>
         </DialogContent>
         <DialogActions>

@@ -34,7 +34,8 @@ export function settingsFormOf(nb: Pick<NotebookSummary, 'title' | 'summary' | '
   return { title: nb.title, summary: nb.summary, tags: nb.tags.join(', '), requiredSignoffs: String(nb.requiredSignoffs) };
 }
 
-function tagProblem(tags: string[]): string | undefined {
+/** Why these tags would be refused, in plain words; undefined when they are fine. */
+export function tagProblem(tags: string[]): string | undefined {
   if (tags.length > NOTEBOOK_TAGS_MAX) return `Use at most ${NOTEBOOK_TAGS_MAX} tags (there are ${tags.length}).`;
   const long = tags.find((t) => t.length > NOTEBOOK_TAG_MAX);
   if (long) return `Tag “${long.slice(0, 12)}…” is too long: at most ${NOTEBOOK_TAG_MAX} characters per tag.`;
