@@ -1,9 +1,10 @@
 import type { MemberRole, NotebookStatus, NotebookView, SiteRole } from '@cribra/contracts';
-import { screen } from '@testing-library/react';
+import { screen, waitFor } from '@testing-library/react';
 import userEvent from '@testing-library/user-event';
 import { describe, expect, it } from 'vitest';
 import { mockFetch } from '../../../test-utils/mock-fetch';
 import { renderRoutes } from '../../../test-utils/render';
+import { notebookKeys } from '../api/keys';
 import NotebookPage from './notebook-page';
 
 const notebook = (myRole: MemberRole | null, status: NotebookStatus): NotebookView => ({
@@ -63,5 +64,33 @@ describe('NotebookPage settings', () => {
   it('hides them on a locked notebook, even from its owner', async () => {
     await openPage('owner', 'locked');
     expect(settingsButton()).toBeNull();
+  });
+});
+
+describe('NotebookPage when a refresh fails', () => {
+  it('keeps the loaded notebook and an open dialog, and says the refresh failed', async () => {
+    mockFetch({
+      'GET /api/auth/me': { body: { id: 'u1', email: 'a@example.org', displayName: 'Ilse', siteRole: 'member', createdAt: '2026-01-01T00:00:00Z' } },
+      // First load answers; every later read is refused (e.g. access withdrawn meanwhile).
+      'GET /api/notebooks/n1': [{ body: notebook('owner', 'draft') }, { status: 403, body: { statusCode: 403, error: 'Forbidden', message: 'You are no longer a member of this notebook' } }],
+    });
+    const { queryClient } = renderRoutes([{ path: '/notebooks/:id', element: <NotebookPage /> }], '/notebooks/n1');
+    await screen.findByRole('heading', { name: 'Sixes in the wheel' });
+    await userEvent.click(settingsButton()!);
+    await userEvent.type(screen.getByLabelText(/^Title/), ' and eights');
+    await queryClient.refetchQueries({ queryKey: notebookKeys.detail('n1') });
+    expect(await screen.findByText(/Could not refresh the notebook \(You are no longer a member of this notebook\)/)).toBeTruthy();
+    // The page behind the dialog is still the notebook (hidden from the accessibility tree by the open dialog).
+    await waitFor(() => expect(screen.getByRole('heading', { name: 'Sixes in the wheel', hidden: true })).toBeTruthy());
+    expect((screen.getByLabelText(/^Title/) as HTMLInputElement).value).toBe('Sixes in the wheel and eights');
+  });
+
+  it('shows the error screen when the notebook never loaded', async () => {
+    mockFetch({
+      'GET /api/auth/me': { body: { id: 'u1', email: 'a@example.org', displayName: 'Ilse', siteRole: 'member', createdAt: '2026-01-01T00:00:00Z' } },
+      'GET /api/notebooks/n1': { status: 403, body: { statusCode: 403, error: 'Forbidden', message: 'Not a member' } },
+    });
+    renderRoutes([{ path: '/notebooks/:id', element: <NotebookPage /> }], '/notebooks/n1');
+    expect(await screen.findByText(/Could not open this notebook/)).toBeTruthy();
   });
 });

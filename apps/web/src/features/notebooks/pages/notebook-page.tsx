@@ -1,5 +1,5 @@
 import type { NotebookView } from '@cribra/contracts';
-import { Alert, Box } from '@mui/material';
+import { Alert, Box, Button } from '@mui/material';
 import { type ReactNode, useState } from 'react';
 import { useParams } from 'react-router-dom';
 import { ErrorState } from '../../../components/error-state';
@@ -32,7 +32,9 @@ export default function NotebookPage({ sidePanel, headerActions }: Props) {
   useDocumentTitle(nb.data?.title ?? 'Notebook');
 
   if (nb.isPending) return <LoadingState label="Loading the notebook…" />;
-  if (nb.isError) return <ErrorState error={nb.error} title="Could not open this notebook" onRetry={() => nb.refetch()} />;
+  // A failed refresh keeps the page (and every unsaved draft and open dialog) and says so; only a
+  // notebook that never loaded gets the error screen.
+  if (!nb.data) return <ErrorState error={nb.error} title="Could not open this notebook" onRetry={() => nb.refetch()} />;
   const notebook = nb.data;
   const who = { myRole: notebook.myRole, status: notebook.status, siteRole: me.data?.siteRole };
   const panel = sidePanel?.(notebook);
@@ -45,6 +47,11 @@ export default function NotebookPage({ sidePanel, headerActions }: Props) {
           onEditSettings={canEdit ? () => setSettingsOpen(true) : undefined} actions={headerActions?.(notebook)} />
         {/* Kept mounted while open even if the notebook gets locked meanwhile, so the input is not lost. */}
         {settingsOpen && <NotebookSettingsDialog notebook={notebook} onClose={() => setSettingsOpen(false)} />}
+        {nb.isError && (
+          <Alert severity="warning" sx={{ mb: 2 }} action={<Button color="inherit" size="small" onClick={() => nb.refetch()}>Retry</Button>}>
+            Could not refresh the notebook ({errorMessage(nb.error)}). This is what was last loaded; nothing you typed was lost.
+          </Alert>
+        )}
         {notebook.status === 'locked' && (
           <Alert severity="info" sx={{ mb: 2 }}>This notebook is locked: it opens read-only, as it was signed off.</Alert>
         )}
