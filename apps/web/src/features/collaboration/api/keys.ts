@@ -5,4 +5,5 @@ export const collabKeys = {
   verification: (id: string) => ['verifications', id] as const,
   lock: (notebookId: string) => ['notebooks', notebookId, 'lock'] as const,
   threads: (notebookId: string) => ['notebooks', notebookId, 'threads'] as const,
+  audit: (notebookId: string) => ['notebooks', notebookId, 'audit'] as const,
 };

@@ -3,9 +3,10 @@ import { LoadingState } from '../../../components/loading-state';
 import { errorMessage } from '../../../lib/api-error';
 import { formatDateTime } from '../../../lib/format';
 import { useLockRecord } from '../api/get-lock';
+import { LockCheckSection } from './lock-check-section';
 
-/** The record of a locked notebook, with its exports. */
-export function LockRecordView({ notebookId }: { notebookId: string }) {
+/** The record of a locked notebook, with its exports and (for members and admins) a re-check against it. */
+export function LockRecordView({ notebookId, canCheck = false }: { notebookId: string; canCheck?: boolean }) {
   const lock = useLockRecord(notebookId, true);
   if (lock.isPending) return <LoadingState label="Loading the lock record…" />;
   if (lock.isError) return <Alert severity="error">{errorMessage(lock.error)}</Alert>;
@@ -28,6 +29,7 @@ export function LockRecordView({ notebookId }: { notebookId: string }) {
         <Button variant="outlined" href={`/api/notebooks/${notebookId}/lock/export?format=json`} download>Export JSON</Button>
         <Button variant="outlined" href={`/api/notebooks/${notebookId}/lock/export?format=markdown`} download>Export Markdown</Button>
       </Box>
+      {canCheck && <LockCheckSection notebookId={notebookId} />}
     </Box>
   );
 }

@@ -8,6 +8,7 @@ import { useReviewState } from '../api/get-review-state';
 import { useVerification } from '../api/get-verification';
 import { useRequestReview } from '../api/request-review';
 import { useStartVerification } from '../api/start-verification';
+import { canCheckLock } from '../lib/who-may';
 import { LockDialog } from './lock-dialog';
 import { LockRecordView } from './lock-record-view';
 import { ReviewForm } from './review-form';
@@ -29,7 +30,7 @@ export function ReviewSection({ notebook, userId, siteRole, onChanged }: Props) 
   const verification = useVerification(shownId, notebook.id);
   const [locking, setLocking] = useState(false);
 
-  if (notebook.status === 'locked') return <LockRecordView notebookId={notebook.id} />;
+  if (notebook.status === 'locked') return <LockRecordView notebookId={notebook.id} canCheck={canCheckLock({ myRole: notebook.myRole, siteRole })} />;
   if (state.isPending) return <LoadingState label="Loading the review…" />;
   if (state.isError) return <Alert severity="error">{errorMessage(state.error)}</Alert>;
   const s = state.data;

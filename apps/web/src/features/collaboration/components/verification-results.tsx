@@ -14,17 +14,27 @@ const COLOUR: Record<VerificationCellStatus, 'default' | 'success' | 'error' | '
 /** Per-cell outcome of a re-verify: same digest, differs (with both digests), failed, skipped. */
 export function VerificationResults({ verification: v }: { verification: VerificationView }) {
   const running = v.status === 'running';
+  const lock = v.purpose === 'lock';
   return (
-    <Box aria-label="Re-verify results" component="section">
-      {running && <LinearProgress aria-label="Re-verifying" sx={{ mb: 1 }} />}
+    <Box aria-label={lock ? 'Re-check results' : 'Re-verify results'} component="section">
+      {running && <LinearProgress aria-label={lock ? 'Re-checking' : 'Re-verifying'} sx={{ mb: 1 }} />}
+      {running && lock && (
+        <Typography variant="body2" role="status" sx={{ mb: 1 }}>
+          {v.cells.length - v.counts.pending} of {v.cells.length} cells compared so far…
+        </Typography>
+      )}
       {!running && (
         <Alert severity={v.allSame ? 'success' : 'warning'} sx={{ mb: 1 }}>
-          {v.allSame
-            ? 'Every cell gave the same outputs as recorded.'
-            : `${v.counts.differs} differ, ${v.counts.failed} failed: a sign-off needs every cell the same.`}
+          {lock
+            ? `${v.counts.same} same, ${v.counts.differs} differ, ${v.counts.failed} failed${v.counts.skipped ? `, ${v.counts.skipped} note${v.counts.skipped === 1 ? '' : 's'} skipped` : ''}: ${
+                v.allSame ? 'every cell gave the outputs in the lock record.' : 'the re-run does not match the lock record.'
+              }`
+            : v.allSame
+              ? 'Every cell gave the same outputs as recorded.'
+              : `${v.counts.differs} differ, ${v.counts.failed} failed: a sign-off needs every cell the same.`}
         </Alert>
       )}
-      <Table size="small" aria-label="Cells re-verified">
+      <Table size="small" aria-label={lock ? 'Cells re-checked' : 'Cells re-verified'}>
         <TableHead>
           <TableRow>
             <TableCell>Cell</TableCell>
