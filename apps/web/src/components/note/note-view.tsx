@@ -3,9 +3,13 @@ import { Box } from '@mui/material';
 import { useMemo } from 'react';
 import { renderNote } from './render-note';
 
-/** A note cell as a page of text: Markdown with KaTeX maths, sanitised. Loaded only with the notebook page. */
-export default function NoteView({ source }: { source: string }) {
-  const html = useMemo(() => renderNote(source), [source]);
+/**
+ * A note cell as a page of text: Markdown with KaTeX maths, sanitised. Loaded only with the notebook page.
+ * `mentions`: display names highlighted where the text says `@Name` (comments).
+ */
+export default function NoteView({ source, mentions }: { source: string; mentions?: string[] }) {
+  const mentionKey = JSON.stringify(mentions ?? []);
+  const html = useMemo(() => renderNote(source, JSON.parse(mentionKey) as string[]), [source, mentionKey]);
   return (
     <Box
       className="note-view"
@@ -17,6 +21,7 @@ export default function NoteView({ source }: { source: string }) {
         '& .note-math': { overflowX: 'auto', my: 1 },
         '& table': { borderCollapse: 'collapse' },
         '& td, & th': { border: 1, borderColor: 'divider', px: 1 },
+        '& .mention': { color: 'primary.dark', bgcolor: 'action.selected', fontWeight: 600, px: 0.25, borderRadius: 0.5 },
       }}
       dangerouslySetInnerHTML={{ __html: html }}
     />

@@ -39,14 +39,41 @@ const inlineMath: TokenizerAndRendererExtension = {
 
 const marked = new Marked({ gfm: true, breaks: false, extensions: [blockMath, inlineMath] });
 
+const escapeHtml = (text: string) =>
+  text.replace(/&/g, '&amp;').replace(/</g, '&lt;').replace(/>/g, '&gt;').replace(/"/g, '&quot;').replace(/'/g, '&#39;');
+
+// `@Display Name` of a mentioned person: a highlighted span. Only the names given match (longest
+// first), not followed by a letter or digit; code spans and maths are tokenised before and stay as they are.
+function mentionExtension(names: string[]): TokenizerAndRendererExtension {
+  const sorted = [...new Set(names.filter((n) => n.trim()))].sort((a, b) => b.length - a.length);
+  return {
+    name: 'mention',
+    level: 'inline',
+    start: (src) => {
+      const i = src.indexOf('@');
+      return i < 0 ? undefined : i;
+    },
+    tokenizer(src) {
+      if (src[0] !== '@') return undefined;
+      const name = sorted.find((n) => src.startsWith(n, 1) && !/[\p{L}\p{N}]/u.test(src.charAt(n.length + 1)));
+      return name === undefined ? undefined : { type: 'mention', raw: `@${name}`, text: name };
+    },
+    renderer: (token) => `<span class="mention">@${escapeHtml(token.text as string)}</span>`,
+  };
+}
+
+const withMentions = (names: string[]) =>
+  new Marked({ gfm: true, breaks: false, extensions: [blockMath, inlineMath, mentionExtension(names)] });
+
 /**
  * A note cell's Markdown with TeX maths as sanitised HTML. Everything the author wrote passes
  * through DOMPurify after rendering, so raw HTML in a note cannot run script.
+ * `mentions`: display names whose `@Name` is highlighted (comments); the result is sanitised the same way.
  */
-export function renderNote(markdown: string): string {
+export function renderNote(markdown: string, mentions: string[] = []): string {
   let html: string;
   try {
-    html = marked.parse(markdown, { async: false });
+    html = (mentions.length ? withMentions(mentions) : marked).parse(markdown, { async: false });
   } catch {
     // Thousands of nested `>` or list levels overflow the Markdown parser's stack: show the text
     // as written instead of failing the whole page for everyone who opens the note or comment.

@@ -14,7 +14,7 @@ export function useCommentActions(notebookId: string) {
   const refresh = () => qc.invalidateQueries({ queryKey: collabKeys.threads(notebookId) });
   return {
     createThread: useMutation({ mutationFn: (b: CreateThreadBody) => createThread(notebookId, b), onSuccess: refresh }),
-    addComment: useMutation({ mutationFn: ({ threadId, body }: { threadId: string; body: string }) => addComment(threadId, { body }), onSuccess: refresh }),
+    addComment: useMutation({ mutationFn: ({ threadId, ...body }: CreateCommentBody & { threadId: string }) => addComment(threadId, body), onSuccess: refresh }),
     resolve: useMutation({ mutationFn: ({ threadId, resolved }: { threadId: string; resolved: boolean }) => setThreadResolved(threadId, resolved), onSuccess: refresh }),
   };
 }

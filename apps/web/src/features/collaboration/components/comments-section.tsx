@@ -1,24 +1,30 @@
-import type { CommentAnchor, NotebookView } from '@cribra/contracts';
+import type { CommentAnchor, NotebookView, UserRef } from '@cribra/contracts';
 import { Alert, Button, MenuItem, Stack, TextField, Typography } from '@mui/material';
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { LoadingState } from '../../../components/loading-state';
 import { errorMessage } from '../../../lib/api-error';
+import { useCurrentUser } from '../../../lib/current-user';
 import { useCommentActions } from '../api/comment-actions';
 import { useThreads } from '../api/list-threads';
+import { useMentionDraft } from '../hooks/use-mention-draft';
+import { MentionField } from './mention-field';
 import { ThreadCard } from './thread-card';
 
 /** Comment threads of the notebook, per cell or for the whole notebook, in the side panel. */
 export function CommentsSection({ notebook, canWrite }: { notebook: NotebookView; canWrite: boolean }) {
   const threads = useThreads(notebook.id);
   const actions = useCommentActions(notebook.id);
+  const me = useCurrentUser();
+  const members = useMemo<UserRef[]>(() => notebook.members.map((m) => ({ id: m.userId, displayName: m.displayName })), [notebook.members]);
   const [target, setTarget] = useState('notebook');
-  const [body, setBody] = useState('');
+  const draft = useMentionDraft();
   const error = actions.createThread.error ?? actions.addComment.error ?? actions.resolve.error;
 
   const start = () => {
-    if (!body.trim()) return;
+    const body = draft.text.trim();
+    if (!body) return;
     const anchor: CommentAnchor = target === 'notebook' ? { kind: 'notebook' } : { kind: 'cell', cellId: target };
-    actions.createThread.mutate({ anchor, body: body.trim() }, { onSuccess: () => setBody('') });
+    actions.createThread.mutate({ anchor, body, mentions: draft.mentions(members) }, { onSuccess: draft.reset });
   };
 
   return (
@@ -29,8 +35,8 @@ export function CommentsSection({ notebook, canWrite }: { notebook: NotebookView
       {threads.isError && <Alert severity="error">{errorMessage(threads.error)}</Alert>}
       {threads.data?.length === 0 && <Typography color="text.secondary">No comments yet.</Typography>}
       {threads.data?.map((t) => (
-        <ThreadCard key={t.id} thread={t} notebook={notebook} canWrite={canWrite}
-          onReply={(b) => actions.addComment.mutate({ threadId: t.id, body: b })}
+        <ThreadCard key={t.id} thread={t} notebook={notebook} canWrite={canWrite} userId={me.data?.id} members={members}
+          onReply={(b, sent) => actions.addComment.mutate({ threadId: t.id, ...b }, { onSuccess: sent })}
           onResolve={(resolved) => actions.resolve.mutate({ threadId: t.id, resolved })} />
       ))}
       {canWrite && (
@@ -39,8 +45,9 @@ export function CommentsSection({ notebook, canWrite }: { notebook: NotebookView
             <MenuItem value="notebook">The whole notebook</MenuItem>
             {notebook.cells.map((c, i) => <MenuItem key={c.id} value={c.id}>Cell {i + 1} ({c.kind})</MenuItem>)}
           </TextField>
-          <TextField label="Comment" value={body} onChange={(e) => setBody(e.target.value)} multiline minRows={2} helperText="Markdown with $maths$." />
-          <Button variant="outlined" onClick={start} disabled={actions.createThread.isPending || !body.trim()}>Start thread</Button>
+          <MentionField label="Comment" value={draft.text} onChange={draft.setText} members={members} onPick={draft.pick} minRows={2}
+            helperText="Markdown with $maths$. Type @ to mention a member." />
+          <Button variant="outlined" onClick={start} disabled={actions.createThread.isPending || !draft.text.trim()}>Start thread</Button>
         </Stack>
       )}
     </Stack>
