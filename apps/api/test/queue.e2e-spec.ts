@@ -27,8 +27,8 @@ describe('queue and runners', () => {
   it('starts a queued run at once on an idle runner, woken by the run notification rather than its poll', async () => {
     // The idle poll is a minute here: only the notification can explain a start within seconds.
     const idle = stack.startRunner('wake-a', { CRIBRA_RUNNER_POLL_MS: '60000' });
-    await waitFor('the runner to register', async () => ((await sql(`SELECT 1 FROM runners WHERE id = 'wake-a'`)).length ? true : undefined));
-    await new Promise((r) => setTimeout(r, 1500)); // past its first polls: it now sleeps for a minute
+    await waitFor('the runner to listen for new runs', async () => (/listening for new runs/.test(stack.logs.get('wake-a') ?? '') ? true : undefined), 45_000);
+    await new Promise((r) => setTimeout(r, 1000)); // past its first fetches: it now sleeps for a minute
     const nb = await createNotebook(owner);
     const cell = await addCell(owner, nb.id, 'primorial(13)');
     const queued = (await owner.client.call('post', `/api/cells/${cell.id}/runs`)).body as RunView;
@@ -38,15 +38,17 @@ describe('queue and runners', () => {
         const r = (await owner.client.call('get', `/api/runs/${queued.id}`)).body as RunView;
         return r.status === 'succeeded' || r.status === 'failed' ? r : undefined;
       },
-      20_000,
+      40_000, // generous for a loaded machine; the start time below is the real check
       50,
-    );
+    ).catch((e: Error) => {
+      throw new Error(`${e.message}\nrunner log:\n${stack.logs.get('wake-a')}`);
+    });
     expect(run).toMatchObject({ status: 'succeeded', runnerId: 'wake-a' });
     expect(run.outputs).toEqual([expect.objectContaining({ kind: 'value', text: '30030' })]); // 13# = 30030 (OEIS A002110)
     const [{ ms }] = await sql<{ ms: number }>(`SELECT extract(epoch FROM started_at - queued_at) * 1000 AS ms FROM runs WHERE id = $1`, [queued.id]);
     expect(Number(ms)).toBeLessThan(10_000);
     await stack.stopRunner(idle);
-  });
+  }, 90_000);
 
   it('finishes a run on another runner after its runner is killed (SIGKILL), counted once', async () => {
     const nb = await createNotebook(owner);

@@ -45,6 +45,10 @@ export class RunWakeup {
       throw e;
     }
     this.client = client;
+    this.log('listening for new runs');
+    // Runs queued while nobody listened (before the start, or during a lost connection) sent
+    // their notification into the void: look once now.
+    this.onQueued();
   }
 
   async stop(): Promise<void> {
