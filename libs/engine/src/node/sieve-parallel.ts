@@ -20,7 +20,7 @@ import type { SieveTask, SieveTaskReply } from './sieve-messages';
 export interface ParallelSieveOptions extends SieveOptions {
   /** Worker threads (default: all cores). 1 still uses one worker thread. */
   readonly workers?: number;
-  /** Blocks the range is cut into (default: 32 per worker, fewer for short ranges). */
+  /** Blocks the range is cut into (default: 16 per worker, fewer for short ranges). */
   readonly blocks?: number;
   /** Called after each finished block with the number done and the total. */
   readonly onProgress?: (done: number, total: number) => void;
@@ -105,7 +105,7 @@ export async function sievePrimeBlockParallel(
     return block;
   }
   // Many small blocks: the last ones finish close together on every worker.
-  let parts = options.blocks ?? workers * 32;
+  let parts = options.blocks ?? workers * 16;
   if (!Number.isSafeInteger(parts) || parts < 1) throw inputError(`block count ${parts} is not a positive integer`);
   if (options.blocks === undefined && BigInt(parts) * MIN_BLOCK > length) parts = Math.max(1, Number(length / MIN_BLOCK));
   const ranges = splitSieveRange(range.from, range.to, parts);
