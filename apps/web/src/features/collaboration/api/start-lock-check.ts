@@ -14,8 +14,9 @@ export function useStartLockCheck(notebookId: string) {
     mutationFn: () => startLockCheck(notebookId),
     onSuccess: (v) => {
       qc.setQueryData(collabKeys.verification(v.id), v);
-      // The check is recorded in the notebook's history.
+      // The check is recorded in the notebook's history and its list of checks.
       void qc.invalidateQueries({ queryKey: collabKeys.audit(notebookId) });
+      void qc.invalidateQueries({ queryKey: collabKeys.verifications(notebookId) });
     },
   });
 }

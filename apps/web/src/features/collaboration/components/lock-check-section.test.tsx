@@ -87,4 +87,34 @@ describe('LockCheckSection', () => {
     expect((screen.getByRole('button', { name: 'Re-check the record' }) as HTMLButtonElement).disabled).toBe(false);
     expect(screen.queryByRole('table')).toBeNull();
   });
+
+  it('shows the latest earlier re-check when the page opens, following one still running (e.g. after a reload)', async () => {
+    const { cells: _cells, ...listed } = running; // a summary: the view without its cells
+    void _cells;
+    mockFetch({
+      'GET /api/notebooks/n1/verifications': {
+        body: [
+          { ...listed, id: 'v0', purpose: 'review' },
+          { ...listed }, // the lock check v1, newest of its kind
+        ],
+      },
+      'GET /api/verifications/v1': [{ body: running }, { body: done }],
+    });
+    renderWithApp(<LockCheckSection notebookId="n1" />);
+    expect(await screen.findByText(/Last re-check, started .* by Ilse Marenko/)).toBeTruthy();
+    // Still running: the button waits, then the results of that same check appear.
+    expect((screen.getByRole('button', { name: 'Re-check the record' }) as HTMLButtonElement).disabled).toBe(true);
+    expect(await screen.findByText(/time limit of 60 s reached/, {}, { timeout: 4000 })).toBeTruthy();
+    await waitFor(() => expect((screen.getByRole('button', { name: 'Re-check the record' }) as HTMLButtonElement).disabled).toBe(false));
+  });
+
+  it('shows no earlier result when the notebook has only review re-verifications', async () => {
+    const { cells: _cells, ...listed } = running;
+    void _cells;
+    const { calls } = mockFetch({ 'GET /api/notebooks/n1/verifications': { body: [{ ...listed, id: 'v0', purpose: 'review' }] } });
+    renderWithApp(<LockCheckSection notebookId="n1" />);
+    await waitFor(() => expect(calls.some((c) => c.url.includes('/notebooks/n1/verifications'))).toBe(true));
+    expect(screen.queryByText(/Last re-check/)).toBeNull();
+    expect(calls.some((c) => c.url.includes('/api/verifications/'))).toBe(false);
+  });
 });
