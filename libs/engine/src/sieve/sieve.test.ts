@@ -98,6 +98,11 @@ describe('input checks', () => {
     expect(f).toThrow(EngineError);
     expect(f).toThrow(message);
   });
+  it('counts a repeated twin pattern as the first (the second goes through the general pattern path)', () => {
+    const [a, b] = sievePrimeBlock(0, '1e8', { patterns: [[0, 2], [0, 2]] }).patterns;
+    expect(a!.count).toBe(440312); // twin pairs below 10^8 (OEIS A007508)
+    expect(b).toEqual(a);
+  });
   it('counts a pattern of the widest accepted diameter across segments (its look-ahead fits the buffer)', () => {
     // {0, 4, 10^6}: n, n + 4, n + 10^6 all prime; checked against a plain unsegmented sieve.
     const H = [0, 4, MAX_PATTERN_DIAMETER];
