@@ -23,6 +23,23 @@ describe('queue and runners', () => {
   });
 
   const sql = <T = Record<string, unknown>>(text: string, params: unknown[] = []): Promise<T[]> => stack.db.query(text, params);
+  /** Waits until the run is running on the given runner. */
+  const takenBy = (runId: string, runnerId: string) =>
+    waitFor(`runner ${runnerId} to take the run`, async () => {
+      const [r] = await sql<{ status: string; runner_id: string }>(`SELECT status, runner_id FROM runs WHERE id = $1`, [runId]);
+      return r.status === 'running' && r.runner_id === runnerId ? true : undefined;
+    });
+  /** Waits until the run has succeeded or failed, and returns it as the API shows it. */
+  const finished = (runId: string, what: string, timeoutMs: number, everyMs?: number) =>
+    waitFor(
+      what,
+      async () => {
+        const r = (await owner.client.call('get', `/api/runs/${runId}`)).body as RunView;
+        return r.status === 'succeeded' || r.status === 'failed' ? r : undefined;
+      },
+      timeoutMs,
+      everyMs,
+    );
 
   it('starts a queued run at once on an idle runner, woken by the run notification rather than its poll', async () => {
     // The idle poll is a minute here: only the notification can explain a start within seconds.
@@ -32,15 +49,8 @@ describe('queue and runners', () => {
     const nb = await createNotebook(owner);
     const cell = await addCell(owner, nb.id, 'primorial(13)');
     const queued = (await owner.client.call('post', `/api/cells/${cell.id}/runs`)).body as RunView;
-    const run = await waitFor(
-      'the run to finish',
-      async () => {
-        const r = (await owner.client.call('get', `/api/runs/${queued.id}`)).body as RunView;
-        return r.status === 'succeeded' || r.status === 'failed' ? r : undefined;
-      },
-      40_000, // generous for a loaded machine; the start time below is the real check
-      50,
-    ).catch((e: Error) => {
+    // Generous for a loaded machine; the start time below is the real check.
+    const run = await finished(queued.id, 'the run to finish', 40_000, 50).catch((e: Error) => {
       throw new Error(`${e.message}\nrunner log:\n${stack.logs.get('wake-a')}`);
     });
     expect(run).toMatchObject({ status: 'succeeded', runnerId: 'wake-a' });
@@ -56,21 +66,11 @@ describe('queue and runners', () => {
     // Runner A pauses 6 s inside every job, so it surely dies mid-job.
     const a = stack.startRunner('kill-a', { CRIBRA_RUNNER_TEST_PAUSE_MS: '6000' });
     const queued = (await owner.client.call('post', `/api/cells/${cell.id}/runs`)).body as RunView;
-    await waitFor('runner A to take the run', async () => {
-      const [r] = await sql<{ status: string; runner_id: string }>(`SELECT status, runner_id FROM runs WHERE id = $1`, [queued.id]);
-      return r.status === 'running' && r.runner_id === 'kill-a' ? true : undefined;
-    });
+    await takenBy(queued.id, 'kill-a');
     await stack.stopRunner(a, 'SIGKILL');
     stack.startRunner('kill-b');
 
-    const run = await waitFor(
-      'the run to finish on runner B',
-      async () => {
-        const r = (await owner.client.call('get', `/api/runs/${queued.id}`)).body as RunView;
-        return r.status === 'succeeded' || r.status === 'failed' ? r : undefined;
-      },
-      45_000,
-    );
+    const run = await finished(queued.id, 'the run to finish on runner B', 45_000);
     expect(run).toMatchObject({ status: 'succeeded', runnerId: 'kill-b', attempts: 2 });
     expect(run.outputs).toEqual([expect.objectContaining({ kind: 'value', text: '510510' })]); // 17# = 510510 (OEIS A002110)
     // Counted once: one run row for the cell, one completed job, A never finished anything.
@@ -108,21 +108,11 @@ describe('queue and runners', () => {
     const a = stack.startRunner('stop-a', { CRIBRA_RUNNER_TEST_PAUSE_MS: '20000', CRIBRA_RUNNER_STOP_GRACE_MS: '300' });
     const queued = (await owner.client.call('post', `/api/cells/${cell.id}/runs`)).body as RunView;
     process.env.CRIBRA_JOB_EXPIRE_SECONDS = saved;
-    await waitFor('runner A to take the run', async () => {
-      const [r] = await sql<{ status: string; runner_id: string }>(`SELECT status, runner_id FROM runs WHERE id = $1`, [queued.id]);
-      return r.status === 'running' && r.runner_id === 'stop-a' ? true : undefined;
-    });
+    await takenBy(queued.id, 'stop-a');
     await stack.stopRunner(a, 'SIGTERM');
     expect(stack.logs.get('stop-a')).toContain('back to the queue');
     stack.startRunner('kill-b');
-    const run = await waitFor(
-      'the run to finish on runner B',
-      async () => {
-        const r = (await owner.client.call('get', `/api/runs/${queued.id}`)).body as RunView;
-        return r.status === 'succeeded' || r.status === 'failed' ? r : undefined;
-      },
-      40_000,
-    );
+    const run = await finished(queued.id, 'the run to finish on runner B', 40_000);
     expect(run).toMatchObject({ status: 'succeeded', runnerId: 'kill-b', attempts: 2 });
     const [a2] = await sql<{ stopped_at: Date | null }>(`SELECT stopped_at FROM runners WHERE id = 'stop-a'`);
     expect(a2.stopped_at).not.toBeNull();

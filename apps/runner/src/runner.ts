@@ -32,6 +32,8 @@ const HANDLERS: Array<[QueueName, JobHandler<never>]> = [
   [QUEUES.levelChunk, levelChunk as JobHandler<never>],
   [QUEUES.ledgerBlock, ledgerBlock as JobHandler<never>],
 ];
+/** What a runner asks for while waiting for the job of a run it was told about. */
+const RUN_CELL_ONLY = HANDLERS.slice(0, 1);
 
 /**
  * A runner process: takes jobs from pg-boss (any number of runners, on any machine, share the
@@ -101,7 +103,7 @@ export class Runner {
     while (!this.stopping) {
       if (this.active < this.cfg.slots) {
         // While waiting for a just-queued run's job, only its queue is asked (one query, not five).
-        const next = await this.fetchNext(this.eager > 0 ? HANDLERS.slice(0, 1) : HANDLERS).catch((err: Error) => {
+        const next = await this.fetchNext(this.eager > 0 ? RUN_CELL_ONLY : HANDLERS).catch((err: Error) => {
           this.log(`fetch failed: ${err.message}`);
           return null;
         });
