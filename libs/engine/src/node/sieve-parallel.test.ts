@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { EngineError } from '../errors';
 import { primeBlockToJson, sievePrimeBlock } from '../sieve';
-import { closeSieveWorkers, sievePrimeBlockParallel } from './sieve-parallel';
+import { closeSieveWorkers, idleSieveWorkers, sievePrimeBlockParallel } from './sieve-parallel';
 
 describe('parallel sieve over worker threads', () => {
   it('equals the one-pass block (π, gaps, patterns) on 2 workers', async () => {
@@ -23,14 +23,19 @@ describe('parallel sieve over worker threads', () => {
     const twins = async () => (await sievePrimeBlockParallel(0, '1e8', { workers: 2, patterns: [[0, 2]] })).patterns[0]!.count;
     // 440 312 twin pairs below 10^8 (OEIS A007508), three times: fresh, reused, and after closing.
     expect(await twins()).toBe(440312);
+    expect(idleSieveWorkers()).toBe(2);
     expect(await twins()).toBe(440312);
+    expect(idleSieveWorkers()).toBe(2); // the same two again, not two more
     const controller = new AbortController();
     const run = sievePrimeBlockParallel(0, '1e11', { workers: 2, signal: controller.signal });
     setTimeout(() => controller.abort(), 100);
     await expect(run).rejects.toThrow(/cancelled/);
+    expect(idleSieveWorkers()).toBe(0); // the cancelled call's workers were stopped, not kept
     expect(await twins()).toBe(440312);
     await closeSieveWorkers();
+    expect(idleSieveWorkers()).toBe(0);
     expect(await twins()).toBe(440312);
+    expect(idleSieveWorkers()).toBe(2);
   });
   it('stops the workers when cancelled', async () => {
     const controller = new AbortController();

@@ -75,6 +75,11 @@ function returnWorkers(workers: readonly Worker[]): void {
   }
 }
 
+/** Number of started sieve workers waiting for the next call. */
+export function idleSieveWorkers(): number {
+  return idle.length;
+}
+
 /** Stops the idle sieve workers (they are started again when needed). */
 export async function closeSieveWorkers(): Promise<void> {
   await Promise.all(idle.splice(0).map((w) => w.terminate()));
