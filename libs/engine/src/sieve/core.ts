@@ -119,7 +119,7 @@ export function sieveCore(
   const extra = patterns.length > 0 ? (maxByteOffset + 11) & ~3 : 0;
   const base0 = a - (a % 30);
   const totalBytes = Math.floor((b - base0) / 30) + 1;
-  // MAX_PATTERN_DIAMETER keeps the look-ahead within the buffer (pattern.test.ts checks it).
+  // MAX_PATTERN_DIAMETER keeps the look-ahead within the buffer (sieve.test.ts sieves the widest pattern).
   if (extra > LOOKAHEAD_BYTES) throw new Error(`internal: look-ahead of ${extra} bytes exceeds ${LOOKAHEAD_BYTES}`);
   const buf = BUF;
   const u32 = WORDS;
