@@ -110,6 +110,13 @@ describe('runs', () => {
       expect(text).toContain(`"id":"${queued.id}"`);
       expect(text).not.toContain(otherRun.id); // only this run's events
       req.destroy();
+      // A subscriber that comes after the end still hears how the run ended (the stream starts with its state).
+      const late = await open(viewer, `/api/runs/${queued.id}/events`);
+      let lateText = '';
+      late.res.on('data', (b: Buffer) => (lateText += b.toString()));
+      await waitFor('the late subscriber to hear the end', async () => (lateText.includes('"status":"succeeded"') ? true : undefined), 5000);
+      expect(lateText).toContain(`"id":"${queued.id}"`);
+      late.req.destroy();
       const unknown = await open(owner, `/api/runs/${NO_SUCH_ID}/events`);
       expect(unknown.res.statusCode).toBe(404);
       unknown.req.destroy();

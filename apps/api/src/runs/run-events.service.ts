@@ -61,4 +61,32 @@ export class RunEventsService implements OnModuleInit, OnModuleDestroy {
     const ping = interval(20_000).pipe(map((): SseMessage => ({ type: 'ping', data: {} })));
     return merge(own, ping);
   }
+
+  /**
+   * One run's events, starting with its state now: a light run may be finished before its
+   * subscriber arrives. Live events are heard from before the state is read and follow it, so none
+   * falls between the two (one heard while reading may repeat an older state; the last one sent is
+   * always the newest).
+   */
+  streamRun(notebookId: string, runId: string, current: () => Promise<RunProgressEvent>): Observable<SseMessage> {
+    const live = this.stream(notebookId, runId);
+    return new Observable<SseMessage>((subscriber) => {
+      const waiting: SseMessage[] = [];
+      let started = false;
+      const sub = live.subscribe({
+        next: (m) => (started ? subscriber.next(m) : waiting.push(m)),
+        error: (e) => subscriber.error(e),
+        complete: () => subscriber.complete(),
+      });
+      current().then(
+        (run) => {
+          subscriber.next({ type: 'run', data: { type: 'run', run } satisfies NotebookEvent });
+          for (const m of waiting.splice(0)) subscriber.next(m);
+          started = true;
+        },
+        (e: unknown) => subscriber.error(e),
+      );
+      return () => sub.unsubscribe();
+    });
+  }
 }

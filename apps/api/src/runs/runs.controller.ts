@@ -90,6 +90,6 @@ export class RunsController {
   async runEvents(@CurrentUser() user: UserEntity, @Param('id', ParseUUIDPipe) id: string): Promise<Observable<SseMessage>> {
     const notebookId = await this.runs.notebookOfRun(id);
     await this.policy.authorize(user, 'notebook.read', notebookId);
-    return this.events.stream(notebookId, id);
+    return this.events.streamRun(notebookId, id, () => this.runs.progressOf(id));
   }
 }

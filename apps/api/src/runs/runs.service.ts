@@ -2,7 +2,7 @@ import { randomUUID } from 'node:crypto';
 import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
-import { QUEUES, type Page, type RunCellJob, type RunPurpose, type RunView } from '@cribra/contracts';
+import { QUEUES, type Page, type RunCellJob, type RunProgressEvent, type RunPurpose, type RunStatus, type RunView } from '@cribra/contracts';
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../members/notebook-policy.service';
 import { QueueService } from '../queue/queue.service';
@@ -36,6 +36,15 @@ export class RunsService {
     const rows: Array<{ notebook_id: string }> = await this.db.query(`SELECT notebook_id FROM runs WHERE id = $1`, [id]);
     if (!rows.length) throw new NotFoundException('Run not found');
     return rows[0].notebook_id;
+  }
+
+  /** The run's state in the shape of its notifications (the runs table's trigger sends the same fields). */
+  async progressOf(id: string): Promise<RunProgressEvent> {
+    const rows: Array<{ id: string; notebook_id: string; cell_id: string; status: RunStatus; progress: number; progress_note: string | null; output_digest: string | null }> =
+      await this.db.query(`SELECT id, notebook_id, cell_id, status, progress, progress_note, output_digest FROM runs WHERE id = $1`, [id]);
+    if (!rows.length) throw new NotFoundException('Run not found');
+    const r = rows[0];
+    return { id: r.id, notebookId: r.notebook_id, cellId: r.cell_id, status: r.status, progress: Number(r.progress), progressNote: r.progress_note, outputDigest: r.output_digest };
   }
 
   /** The cell as a run needs it (404 if unknown); the controller passes it on to runCell. */
