@@ -147,6 +147,7 @@ export function sieveCore(
   const what = `sieving [${a}, ${b}]`;
   let segments = 0;
   let done = 0;
+  let prevLen = 0; // bytes of the previous segment (0 before the first)
   while (done < totalBytes) {
     if (hooks && segments > 0 && segments % SEGMENTS_PER_REPORT === 0) {
       checkStop(hooks, what);
@@ -159,7 +160,12 @@ export function sieveCore(
     const L = len + extra;
     const base = base0 + 30 * done;
     const off = (base / 30) % PRESIEVE_PERIOD;
-    buf.set(pattern.subarray(off, off + L), 0);
+    // The previous segment's look-ahead, sieved whole, is this segment's start: carried over, since
+    // the primes from SMALL_PRIME_BOUND on crossed it off there and go on after it (one pass over
+    // their progressions per segment instead of two; the others cross it again, which is harmless).
+    const carry = prevLen > 0 ? extra : 0;
+    if (carry > 0) buf.copyWithin(0, prevLen, prevLen + carry);
+    buf.set(pattern.subarray(off + carry, off + L), carry);
     buf.fill(0, L, L + 8);
     applyWordPatterns((L + 3) >> 2, base / 30);
     if (base < 30 * PATTERN_PRIMES_BYTES) {
@@ -174,10 +180,11 @@ export function sieveCore(
     // Activate the primes whose square falls before the end of this segment.
     active = activate(sieving, firstSieving, nMedium, active, base, base + 30 * L, next, masks);
     while (small < active && sieving[firstSieving + small]! < SMALL_PRIME_BOUND) small++;
-    // The primes with few hits per piece cross the whole segment first; then the small primes one
+    // The primes with few hits per piece cross the whole segment and its look-ahead first, and their
+    // positions become relative to the next segment; then the small primes one
     // L1-sized piece at a time, and each piece is counted while it is still in the cache (its last
     // word waits for the next piece: a twin starting there ends in it).
-    crossRange(next, masks, sieving, firstSieving, small, active, len, 0);
+    crossRange(next, masks, sieving, firstSieving, small, active, L, len);
     if (large) large.crossSegment(base0, done, len, L);
     const words = len >> 2;
     const twins = twinIndex >= 0;
@@ -192,7 +199,7 @@ export function sieveCore(
       counted = upTo;
     }
     crossRange(next, masks, sieving, firstSieving, 0, small, len, 0);
-    endSegment(next, masks, sieving, firstSieving, active, len, L);
+    endSegment(next, masks, sieving, firstSieving, small, len, L);
 
     // Primes of this segment: start bytes [0, len).
     segCount += twins ? countPrimesAndTwins(counted, words, stats, tw) : countPrimes(counted, words);
@@ -224,6 +231,7 @@ export function sieveCore(
     }
     for (let i = 0; i < patterns.length; i++) if (i !== twinIndex) countPattern(words, base, patterns[i]!, stats, 3 * i);
     done += len;
+    prevLen = len;
   }
   hooks?.onProgress?.(1, what);
   return finish();

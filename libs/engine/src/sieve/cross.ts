@@ -103,9 +103,8 @@ export function activate(
 }
 
 /**
- * Ends a segment of `len` bytes for the active primes: crosses off the look-ahead bytes [len, L)
- * (they are sieved again as part of the next segment) and makes the positions relative to the next
- * segment, in one pass over the progressions.
+ * Ends a segment of `len` bytes for the sieving primes i < active: crosses off the look-ahead bytes
+ * [len, L) and makes the positions relative to the next segment, in one pass over the progressions.
  */
 export function endSegment(
   next: Int32Array,
