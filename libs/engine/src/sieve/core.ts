@@ -3,7 +3,7 @@ import type { CompiledPattern } from './pattern';
 import { LargePrimes } from './buckets';
 import { clearOutside, countPattern, countPrimes, countPrimesAndTwins, firstBitValue, lastBitValue, locateTwins } from './count';
 import { activate, crossRange, endSegment } from './cross';
-import { L1_BYTES, LARGE_PRIME_BOUND, LOOKAHEAD_BYTES, SEGMENT_BUFFER, SEGMENT_BYTES, SMALL_PRIME_BOUND } from './layout';
+import { CROSSING_PRIMES_MAX, L1_BYTES, LARGE_PRIME_BOUND, LOOKAHEAD_BYTES, SEGMENT_BUFFER, SEGMENT_BYTES, SMALL_PRIME_BOUND } from './layout';
 import { PRESIEVE_PERIOD, presievePattern } from './presieve';
 import { LAST_PATTERN_PRIME, PATTERN_PRIMES, PATTERN_PRIMES_BYTES, applyWordPatterns } from './presieve-words';
 import { checkStop, type WorkHooks } from './progress';
@@ -38,9 +38,6 @@ export interface CoreResult {
   gaps: CoreGapResult | null;
 }
 
-// Work arrays reused across calls (a sieve call runs to completion before the next one starts).
-let scratchNext = new Int32Array(0);
-let scratchMasks = new Uint8Array(0);
 // The segment as module constants (see SEGMENT_BUFFER: why not parameters).
 const BUF = new Uint8Array(SEGMENT_BUFFER);
 const WORDS = new Int32Array(SEGMENT_BUFFER);
@@ -135,12 +132,7 @@ export function sieveCore(
   let nMedium = 0;
   while (nMedium < nSieving && sieving[firstSieving + nMedium]! < LARGE_PRIME_BOUND) nMedium++;
   const large = nMedium < nSieving ? new LargePrimes(sieving, firstSieving + nMedium, lastSieving, totalBytes) : null;
-  if (scratchNext.length < 8 * nMedium) {
-    scratchNext = new Int32Array(8 * nMedium);
-    scratchMasks = new Uint8Array(8 * nMedium);
-  }
-  const next = scratchNext;
-  const masks = scratchMasks;
+  if (nMedium > CROSSING_PRIMES_MAX) throw new Error(`internal: ${nMedium} crossing primes exceed ${CROSSING_PRIMES_MAX}`);
   let active = 0;
   let small = 0;
 
@@ -178,13 +170,13 @@ export function sieveCore(
     clearOutside(base, L, a, b);
 
     // Activate the primes whose square falls before the end of this segment.
-    active = activate(sieving, firstSieving, nMedium, active, base, base + 30 * L, next, masks);
+    active = activate(sieving, firstSieving, nMedium, active, base, base + 30 * L);
     while (small < active && sieving[firstSieving + small]! < SMALL_PRIME_BOUND) small++;
     // The primes with few hits per piece cross the whole segment and its look-ahead first, and their
     // positions become relative to the next segment; then the small primes one
     // L1-sized piece at a time, and each piece is counted while it is still in the cache (its last
     // word waits for the next piece: a twin starting there ends in it).
-    crossRange(next, masks, sieving, firstSieving, small, active, L, len);
+    crossRange(small, active, L, len);
     if (large) large.crossSegment(base0, done, len, L);
     const words = len >> 2;
     const twins = twinIndex >= 0;
@@ -193,13 +185,13 @@ export function sieveCore(
     let segCount = 0;
     let counted = 0;
     for (let piece = L1_BYTES; piece < len; piece += L1_BYTES) {
-      crossRange(next, masks, sieving, firstSieving, 0, small, piece, 0);
+      crossRange(0, small, piece, 0);
       const upTo = (piece >> 2) - 1;
       segCount += twins ? countPrimesAndTwins(counted, upTo, stats, tw) : countPrimes(counted, upTo);
       counted = upTo;
     }
-    crossRange(next, masks, sieving, firstSieving, 0, small, len, 0);
-    endSegment(next, masks, sieving, firstSieving, small, len, L);
+    crossRange(0, small, len, 0);
+    endSegment(small, len, L);
 
     // Primes of this segment: start bytes [0, len).
     segCount += twins ? countPrimesAndTwins(counted, words, stats, tw) : countPrimes(counted, words);
