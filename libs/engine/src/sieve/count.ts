@@ -82,37 +82,37 @@ export function countPrimes(from: number, to: number): number {
  */
 export function countPrimesAndTwins(from: number, to: number, stats: Float64Array, at: number): number {
   const u32 = WORDS;
-  let primes = 0;
-  let count = 0;
-  // Four words at a time, without branches (whether a word holds a twin is unpredictable). Primes:
-  // nibble counts (≤ 4 each) of three words add up to ≤ 12, then byte counts to ≤ 32. Twins start
-  // at bits 2, 4, 7 of a byte; shifted right by one they land on 1, 3, 6, so two words share one count.
+  // Eight words at a time through carry-save adders (bit-sliced counters: `ones`, `twos`, `fours`
+  // hold the bits of weight 1, 2, 4 still to be counted; a full adder is five bitwise operations),
+  // so that one population count serves eight words. Twins start at bits 2, 4, 7 of a byte; shifted
+  // right by one they land on 1, 3, 6, so two words of twin starts share one word of counters.
+  let ones = 0, twos = 0, fours = 0, eights = 0;
+  let tOnes = 0, tTwos = 0, tFours = 0;
   let w = from;
-  for (; w + 4 <= to; w += 4) {
-    const P0 = u32[w]!, P1 = u32[w + 1]!, P2 = u32[w + 2]!, P3 = u32[w + 3]!, P4 = u32[w + 4]!;
-    let a = P0 - ((P0 >>> 1) & 0x55555555);
-    let b = P1 - ((P1 >>> 1) & 0x55555555);
-    let c = P2 - ((P2 >>> 1) & 0x55555555);
-    let d = P3 - ((P3 >>> 1) & 0x55555555);
-    a = (a & 0x33333333) + ((a >>> 2) & 0x33333333);
-    b = (b & 0x33333333) + ((b >>> 2) & 0x33333333);
-    c = (c & 0x33333333) + ((c >>> 2) & 0x33333333);
-    d = (d & 0x33333333) + ((d >>> 2) & 0x33333333);
-    let s = a + b + c;
-    s = (s & 0x0f0f0f0f) + ((s >>> 4) & 0x0f0f0f0f) + (d & 0x0f0f0f0f) + ((d >>> 4) & 0x0f0f0f0f);
-    primes += Math.imul(s, 0x01010101) >>> 24;
-    const o0 = P0 & ((P0 >>> 1) | (P1 << 31)) & 0x94949494;
-    const o1 = P1 & ((P1 >>> 1) | (P2 << 31)) & 0x94949494;
-    const o2 = P2 & ((P2 >>> 1) | (P3 << 31)) & 0x94949494;
-    const o3 = P3 & ((P3 >>> 1) | (P4 << 31)) & 0x94949494;
-    let x = o0 | (o1 >>> 1);
-    let y = o2 | (o3 >>> 1);
-    x -= (x >>> 1) & 0x55555555;
-    y -= (y >>> 1) & 0x55555555;
-    x = (x & 0x33333333) + ((x >>> 2) & 0x33333333) + (y & 0x33333333) + ((y >>> 2) & 0x33333333);
-    x = (x & 0x0f0f0f0f) + ((x >>> 4) & 0x0f0f0f0f);
-    count += Math.imul(x, 0x01010101) >>> 24;
+  for (; w + 8 <= to; w += 8) {
+    const P0 = u32[w]!, P1 = u32[(w + 1) | 0]!, P2 = u32[(w + 2) | 0]!, P3 = u32[(w + 3) | 0]!;
+    const P4 = u32[(w + 4) | 0]!, P5 = u32[(w + 5) | 0]!, P6 = u32[(w + 6) | 0]!, P7 = u32[(w + 7) | 0]!;
+    const P8 = u32[(w + 8) | 0]!;
+    // Primes: 8 words into ones/twos/fours, the carries of weight 8 counted.
+    let u = ones ^ P0, h = (ones & P0) | (u & P1), twosA = h; ones = u ^ P1;
+    u = ones ^ P2; h = (ones & P2) | (u & P3); ones = u ^ P3;
+    u = twos ^ twosA; const foursA = (twos & twosA) | (u & h); twos = u ^ h;
+    u = ones ^ P4; h = (ones & P4) | (u & P5); twosA = h; ones = u ^ P5;
+    u = ones ^ P6; h = (ones & P6) | (u & P7); ones = u ^ P7;
+    u = twos ^ twosA; const foursB = (twos & twosA) | (u & h); twos = u ^ h;
+    u = fours ^ foursA; const e = (fours & foursA) | (u & foursB); fours = u ^ foursB;
+    eights += popcount32(e);
+    // Twin starts of the 8 words, packed two words to one.
+    const T0 = (P0 & ((P0 >>> 1) | (P1 << 31)) & 0x94949494) | ((P1 & ((P1 >>> 1) | (P2 << 31)) & 0x94949494) >>> 1);
+    const T1 = (P2 & ((P2 >>> 1) | (P3 << 31)) & 0x94949494) | ((P3 & ((P3 >>> 1) | (P4 << 31)) & 0x94949494) >>> 1);
+    const T2 = (P4 & ((P4 >>> 1) | (P5 << 31)) & 0x94949494) | ((P5 & ((P5 >>> 1) | (P6 << 31)) & 0x94949494) >>> 1);
+    const T3 = (P6 & ((P6 >>> 1) | (P7 << 31)) & 0x94949494) | ((P7 & ((P7 >>> 1) | (P8 << 31)) & 0x94949494) >>> 1);
+    u = tOnes ^ T0; h = (tOnes & T0) | (u & T1); const tTwosA = h; tOnes = u ^ T1;
+    u = tOnes ^ T2; h = (tOnes & T2) | (u & T3); tOnes = u ^ T3;
+    u = tTwos ^ tTwosA; tFours += popcount32((tTwos & tTwosA) | (u & h)); tTwos = u ^ h;
   }
+  let primes = 8 * eights + 4 * popcount32(fours) + 2 * popcount32(twos) + popcount32(ones);
+  let count = 4 * tFours + 2 * popcount32(tTwos) + popcount32(tOnes);
   for (; w < to; w++) {
     const P = u32[w]!;
     primes += popcount32(P);
