@@ -4,8 +4,7 @@ import { LargePrimes } from './buckets';
 import { clearOutside, countPattern, countPrimes, countPrimesAndTwins, firstBitValue, lastBitValue, locateTwins } from './count';
 import { activate, crossRange, endSegment } from './cross';
 import { CROSSING_PRIMES_MAX, L1_BYTES, LARGE_PRIME_BOUND, LOOKAHEAD_BYTES, SEGMENT_BUFFER, SEGMENT_BYTES, SMALL_PRIME_BOUND } from './layout';
-import { PRESIEVE_PERIOD, presievePattern } from './presieve';
-import { LAST_PATTERN_PRIME, PATTERN_PRIMES, PATTERN_PRIMES_BYTES, applyWordPatterns } from './presieve-words';
+import { LAST_PATTERN_PRIME, PATTERN_PRIMES, PATTERN_PRIMES_BYTES, writeWordPatterns } from './presieve-words';
 import { checkStop, type WorkHooks } from './progress';
 import { RESIDUE_BIT, WORD_BIT_VALUE } from './wheel30';
 
@@ -44,9 +43,8 @@ const WORDS = new Int32Array(SEGMENT_BUFFER);
 
 /**
  * Segmented sieve of Eratosthenes on the mod-30 wheel over [a, b] (safe integers, 0 ≤ a ≤ b,
- * b < 2^53): one byte per 30 integers, segments of SEGMENT_BYTES; the multiples of 7 … 19 removed by
- * copying a pre-sieved pattern, those of 23 … 43 by AND-ing word patterns; every sieving prime
- * 47 ≤ p < LARGE_PRIME_BOUND crossed off per wheel residue class (eight progressions of step p
+ * b < 2^53): one byte per 30 integers, segments of SEGMENT_BYTES; the multiples of 7 … 47 removed by
+ * writing word patterns; every sieving prime 53 ≤ p < LARGE_PRIME_BOUND crossed off per wheel residue class (eight progressions of step p
  * bytes, unrolled), the larger ones by a bucket sieve. `sieving` must hold every prime ≤ √b in
  * increasing order (more are ignored). Counts primes, the given patterns (n ≥ a, n + max H ≤ b) and,
  * when asked, the gap histogram and the record gaps. `hooks` are called every
@@ -120,7 +118,6 @@ export function sieveCore(
   if (extra > LOOKAHEAD_BYTES) throw new Error(`internal: look-ahead of ${extra} bytes exceeds ${LOOKAHEAD_BYTES}`);
   const buf = BUF;
   const u32 = WORDS;
-  const pattern = presievePattern(SEGMENT_BYTES + extra + 8);
 
   // Sieving primes from 47 up: next byte of each of the 8 residue-class progressions, and its mask.
   let firstSieving = 0;
@@ -151,17 +148,15 @@ export function sieveCore(
     const len = rest >= SEGMENT_BYTES ? SEGMENT_BYTES : (rest + 3) & ~3;
     const L = len + extra;
     const base = base0 + 30 * done;
-    const off = (base / 30) % PRESIEVE_PERIOD;
     // The previous segment's look-ahead, sieved whole, is this segment's start: carried over, since
     // the primes from SMALL_PRIME_BOUND on crossed it off there and go on after it (one pass over
     // their progressions per segment instead of two; the others cross it again, which is harmless).
     const carry = prevLen > 0 ? extra : 0;
     if (carry > 0) buf.copyWithin(0, prevLen, prevLen + carry);
-    buf.set(pattern.subarray(off + carry, off + L), carry);
+    writeWordPatterns(carry >> 2, (L + 3) >> 2, base / 30);
     buf.fill(0, L, L + 8);
-    applyWordPatterns((L + 3) >> 2, base / 30);
     if (base < 30 * PATTERN_PRIMES_BYTES) {
-      // The patterns removed 7 … 43 with their multiples: put them back; 1 is not prime.
+      // The patterns removed 7 … 47 with their multiples: put them back; 1 is not prime.
       if (base === 0) buf[0]! &= 0xfe;
       for (const q of PATTERN_PRIMES) if (q >= base) buf[(q - base - (q % 30)) / 30]! |= 1 << RESIDUE_BIT[q % 30]!;
     }
