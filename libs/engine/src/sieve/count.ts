@@ -52,28 +52,30 @@ const twinBits = (w: number): number => {
   return P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494;
 };
 
-/** Number of primes (1 bits) in the words [from, to): three words share one reduction (nibble sums ≤ 12). */
+/** Number of primes (1 bits) in the words [from, to): eight words per population count (see countPrimesAndTwins). */
 export function countPrimes(from: number, to: number): number {
   const u32 = WORDS;
-  let total = 0;
+  let ones = 0, twos = 0, fours = 0, eights = 0;
   let w = from;
-  for (; w + 3 <= to; w += 3) {
-    let a = u32[w]!, b = u32[w + 1]!, c = u32[w + 2]!;
-    a -= (a >>> 1) & 0x55555555;
-    b -= (b >>> 1) & 0x55555555;
-    c -= (c >>> 1) & 0x55555555;
-    let s = (a & 0x33333333) + ((a >>> 2) & 0x33333333) + (b & 0x33333333) + ((b >>> 2) & 0x33333333);
-    s += (c & 0x33333333) + ((c >>> 2) & 0x33333333);
-    s = (s & 0x0f0f0f0f) + ((s >>> 4) & 0x0f0f0f0f);
-    total += Math.imul(s, 0x01010101) >>> 24;
+  for (; w + 8 <= to; w += 8) {
+    const P0 = u32[w]!, P1 = u32[(w + 1) | 0]!, P2 = u32[(w + 2) | 0]!, P3 = u32[(w + 3) | 0]!;
+    const P4 = u32[(w + 4) | 0]!, P5 = u32[(w + 5) | 0]!, P6 = u32[(w + 6) | 0]!, P7 = u32[(w + 7) | 0]!;
+    let u = ones ^ P0, h = (ones & P0) | (u & P1), twosA = h; ones = u ^ P1;
+    u = ones ^ P2; h = (ones & P2) | (u & P3); ones = u ^ P3;
+    u = twos ^ twosA; const foursA = (twos & twosA) | (u & h); twos = u ^ h;
+    u = ones ^ P4; h = (ones & P4) | (u & P5); twosA = h; ones = u ^ P5;
+    u = ones ^ P6; h = (ones & P6) | (u & P7); ones = u ^ P7;
+    u = twos ^ twosA; const foursB = (twos & twosA) | (u & h); twos = u ^ h;
+    u = fours ^ foursA; eights += popcount32((fours & foursA) | (u & foursB)); fours = u ^ foursB;
   }
+  let total = 8 * eights + 4 * popcount32(fours) + 2 * popcount32(twos) + popcount32(ones);
   for (; w < to; w++) total += popcount32(u32[w]!);
   return total;
 }
 
 /**
- * One pass over the words [from, to) counting the primes and the twin pairs that start there; reads
- * word `to` too, which must be final. Returns the number of primes and adds the twins to
+ * Counts the primes in the words [from, to) and the twin pairs that start there; reads word `to`
+ * too, which must be final. Returns the number of primes and adds the twins to
  * `stats[at]` (their first and last are found by locateTwins, so the loop has no bookkeeping).
  * Pattern statistics live in a Float64Array — count, first, last at `at`, `at + 1`, `at + 2` — not
  * in objects: a field of an object changing from a small integer to a large one changes the
@@ -82,44 +84,32 @@ export function countPrimes(from: number, to: number): number {
  */
 export function countPrimesAndTwins(from: number, to: number, stats: Float64Array, at: number): number {
   const u32 = WORDS;
-  // Eight words at a time through carry-save adders (bit-sliced counters: `ones`, `twos`, `fours`
-  // hold the bits of weight 1, 2, 4 still to be counted; a full adder is five bitwise operations),
-  // so that one population count serves eight words. Twins start at bits 2, 4, 7 of a byte; shifted
-  // right by one they land on 1, 3, 6, so two words of twin starts share one word of counters.
-  let ones = 0, twos = 0, fours = 0, eights = 0;
-  let tOnes = 0, tTwos = 0, tFours = 0;
+  // Twin starts are at bits 2, 4, 7 of a byte; shifted right by one they land on 1, 3, 6, so two
+  // words of twin starts share one word, and four such words go through the carry-save adders.
+  let ones = 0, twos = 0, fours = 0;
   let w = from;
   for (; w + 8 <= to; w += 8) {
     const P0 = u32[w]!, P1 = u32[(w + 1) | 0]!, P2 = u32[(w + 2) | 0]!, P3 = u32[(w + 3) | 0]!;
     const P4 = u32[(w + 4) | 0]!, P5 = u32[(w + 5) | 0]!, P6 = u32[(w + 6) | 0]!, P7 = u32[(w + 7) | 0]!;
     const P8 = u32[(w + 8) | 0]!;
-    // Primes: 8 words into ones/twos/fours, the carries of weight 8 counted.
-    let u = ones ^ P0, h = (ones & P0) | (u & P1), twosA = h; ones = u ^ P1;
-    u = ones ^ P2; h = (ones & P2) | (u & P3); ones = u ^ P3;
-    u = twos ^ twosA; const foursA = (twos & twosA) | (u & h); twos = u ^ h;
-    u = ones ^ P4; h = (ones & P4) | (u & P5); twosA = h; ones = u ^ P5;
-    u = ones ^ P6; h = (ones & P6) | (u & P7); ones = u ^ P7;
-    u = twos ^ twosA; const foursB = (twos & twosA) | (u & h); twos = u ^ h;
-    u = fours ^ foursA; const e = (fours & foursA) | (u & foursB); fours = u ^ foursB;
-    eights += popcount32(e);
-    // Twin starts of the 8 words, packed two words to one.
     const T0 = (P0 & ((P0 >>> 1) | (P1 << 31)) & 0x94949494) | ((P1 & ((P1 >>> 1) | (P2 << 31)) & 0x94949494) >>> 1);
     const T1 = (P2 & ((P2 >>> 1) | (P3 << 31)) & 0x94949494) | ((P3 & ((P3 >>> 1) | (P4 << 31)) & 0x94949494) >>> 1);
     const T2 = (P4 & ((P4 >>> 1) | (P5 << 31)) & 0x94949494) | ((P5 & ((P5 >>> 1) | (P6 << 31)) & 0x94949494) >>> 1);
     const T3 = (P6 & ((P6 >>> 1) | (P7 << 31)) & 0x94949494) | ((P7 & ((P7 >>> 1) | (P8 << 31)) & 0x94949494) >>> 1);
-    u = tOnes ^ T0; h = (tOnes & T0) | (u & T1); const tTwosA = h; tOnes = u ^ T1;
-    u = tOnes ^ T2; h = (tOnes & T2) | (u & T3); tOnes = u ^ T3;
-    u = tTwos ^ tTwosA; tFours += popcount32((tTwos & tTwosA) | (u & h)); tTwos = u ^ h;
+    let u = ones ^ T0, h = (ones & T0) | (u & T1);
+    const twosA = h;
+    ones = u ^ T1;
+    u = ones ^ T2; h = (ones & T2) | (u & T3); ones = u ^ T3;
+    u = twos ^ twosA; fours += popcount32((twos & twosA) | (u & h)); twos = u ^ h;
   }
-  let primes = 8 * eights + 4 * popcount32(fours) + 2 * popcount32(twos) + popcount32(ones);
-  let count = 4 * tFours + 2 * popcount32(tTwos) + popcount32(tOnes);
+  let count = 4 * fours + 2 * popcount32(twos) + popcount32(ones);
   for (; w < to; w++) {
     const P = u32[w]!;
-    primes += popcount32(P);
     count += popcount32(P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494);
   }
   stats[at] += count;
-  return primes;
+  // A second pass over the same words, still in the L1 cache.
+  return countPrimes(from, to);
 }
 
 /** Sets the first twin (stats[at + 1], when still −1) and the last one (stats[at + 2]) from the words [0, words), which hold one. */
