@@ -4,5 +4,6 @@ export * from './prime-block-json';
 export * from './combine';
 export { parseSieveRange, sievePrimeBlock, SIEVE_MAX_TO, type RangeEnd, type SieveOptions } from './range';
 export * from './queries';
+export { forEachPrimeBetween } from './walk';
 export { checkStop, partHooks, type WorkHooks } from './progress';
 export { compilePattern, MAX_PATTERN_DIAMETER, type CompiledPattern } from './pattern';

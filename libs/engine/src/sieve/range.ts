@@ -1,12 +1,12 @@
 import { inputError, limitError } from '../errors';
-import { primesUpTo } from '../primes/small-primes';
 import { sieveCore } from './core';
 import { compilePattern, type CompiledPattern } from './pattern';
 import type { PrimeBlock } from './prime-block';
 import type { WorkHooks } from './progress';
+import { SIEVE_MAX_TO, sievingPrimesFor } from './sieving-primes';
+import { forEachPrimeBetween } from './walk';
 
-/** Largest upper end `to` the sieve accepts: 10^15 (all positions stay exact as numbers). */
-export const SIEVE_MAX_TO = 10n ** 15n;
+export { SIEVE_MAX_TO };
 
 /** What to compute besides π: gap statistics and constellation patterns. */
 export interface SieveOptions {
@@ -44,21 +44,6 @@ function toBig(v: RangeEnd, name: string): bigint {
   return BigInt(m[1]!) * 10n ** BigInt(m[2] ?? '0');
 }
 
-let sievingCache: Uint32Array = new Uint32Array(0);
-let sievingBound = 0;
-
-/** Every prime ≤ √to (cached, grown on demand). */
-export function sievingPrimesFor(to: number): Uint32Array {
-  let r = Math.floor(Math.sqrt(to));
-  while (r * r > to) r--;
-  while ((r + 1) * (r + 1) <= to) r++;
-  if (r > sievingBound) {
-    sievingCache = primesUpTo(Math.max(r, 2 * sievingBound, 1000));
-    sievingBound = Math.max(r, 2 * sievingBound, 1000);
-  }
-  return sievingCache;
-}
-
 /**
  * Sieves the range [from, to] and returns its combinable summary: π over the range, first and last
  * prime, optionally the gap histogram and record gaps, and for each pattern H the number of n with
@@ -85,8 +70,8 @@ export function sieveCompiled(from: bigint, to: bigint, compiled: readonly Compi
   let headPrimes: number[] = [];
   let tailPrimes: number[] = [];
   if (window > 0) {
-    headPrimes = primesInShortRange(a, Math.min(b, a + window - 1), sieving).map((p) => p - a);
-    tailPrimes = primesInShortRange(Math.max(a, b - window + 1), b, sieving).map((p) => b - p).reverse();
+    headPrimes = primesInShortRange(a, Math.min(b, a + window - 1)).map((p) => p - a);
+    tailPrimes = primesInShortRange(Math.max(a, b - window + 1), b).map((p) => b - p).reverse();
   }
   const big = (v: number): bigint | null => (v < 0 ? null : BigInt(v));
   let gapStats: PrimeBlock['gaps'] = null;
@@ -116,20 +101,11 @@ export function sieveCompiled(from: bigint, to: bigint, compiled: readonly Compi
   };
 }
 
-/** The primes in [lo, hi] for a short interval, by a plain sieve with the given sieving primes. */
-function primesInShortRange(lo: number, hi: number, sieving: Uint32Array): number[] {
-  if (hi < lo) return [];
-  const size = hi - lo + 1;
-  const composite = new Uint8Array(size);
-  for (let i = 0; i < sieving.length; i++) {
-    const p = sieving[i]!;
-    if (p * p > hi) break;
-    const rem = lo % p;
-    let start = rem === 0 ? lo : lo - rem + p;
-    if (start < p * p) start = p * p;
-    for (let n = start; n <= hi; n += p) composite[n - lo] = 1;
-  }
+/** The primes in [lo, hi] (a short interval), in increasing order. */
+function primesInShortRange(lo: number, hi: number): number[] {
   const out: number[] = [];
-  for (let i = 0; i < size; i++) if (!composite[i] && lo + i >= 2) out.push(lo + i);
+  forEachPrimeBetween(lo, hi, (p) => {
+    out.push(p);
+  });
   return out;
 }
