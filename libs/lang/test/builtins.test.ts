@@ -22,8 +22,17 @@ const cases: Record<string, () => void> = {
   nextprime: () => expect(value('nextprime(10^12)')).toBe('1000000000039'), // (from memory) least prime above 10^12
   prevprime: () => expect(value('prevprime(100)')).toBe('97'),
   primorial: () => expect(value('[primorial(p) : p ∈ primes 2..13]')).toBe('[2, 6, 30, 210, 2310, 30030]'), // OEIS A002110
-  totient: () => expect(value('[totient(n) : n ∈ 1..10]')).toBe('[1, 1, 2, 2, 4, 2, 6, 4, 6, 4]'), // OEIS A000010
-  factor: () => expect(table('factor(360)').rows).toEqual([['2', '3'], ['3', '2'], ['5', '1']]),
+  totient: () => {
+    expect(value('[totient(n) : n ∈ 1..10]')).toBe('[1, 1, 2, 2, 4, 2, 6, 4, 6, 4]'); // OEIS A000010
+    expect(value('totient(2^32 + 1)')).toBe(String(640 * 6700416)); // 2^32 + 1 = 641 · 6700417 (Euler, 1732)
+  },
+  factor: () => {
+    expect(table('factor(360)').rows).toEqual([['2', '3'], ['3', '2'], ['5', '1']]);
+    expect(table('factor(2^64 + 1)').rows).toEqual([['274177', '1'], ['67280421310721', '1']]); // Landry, 1880
+    expect(failure('factor(10^24 + 1)')).toMatchObject({ kind: 'limit', message: 'factor: factoring is limited to n ≤ 10^24' });
+    // Two 12-digit primes (the engine's hardest case, ≈ 10^6 steps of Pollard's rho) stop at a 1 ms limit.
+    expect(failure('factor(999999999989 * 999999999959)', { limits: { maxMillis: 1 } })).toMatchObject({ kind: 'limit', message: expect.stringContaining('time limit') });
+  },
   gcd: () => expect(value('gcd(84, 36, 60)')).toBe('12'),
   lcm: () => expect(value('lcm([1, 2, 3, 4, 5, 6, 7, 8, 9, 10])')).toBe('2520'), // OEIS A003418(10)
   abs: () => expect(value('abs(-7/2)')).toBe('7/2'),

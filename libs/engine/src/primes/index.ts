@@ -1,2 +1,3 @@
 export * from './small-primes';
 export * from './is-prime';
+export * from './factor';

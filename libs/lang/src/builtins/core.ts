@@ -1,3 +1,4 @@
+import { FACTOR_MAX, factorInteger } from '@cribra/engine';
 import { domainError, limitError, typeError } from '../errors';
 import * as A from '../runtime/arithmetic';
 import { forEachPrime, isPrime } from '../runtime/primes';
@@ -47,27 +48,10 @@ function intSqrt(n: bigint): bigint {
   return x;
 }
 
-/** Prime factorisation by trial division (n ≤ 10^18, ≤ 10^9 trial divisors; enough for cells). */
-function factorize(n: bigint, ctx: CallContext, fn: string): [bigint, number][] {
-  if (n > 10n ** 18n) throw limitError(`${fn}: factoring is limited to n ≤ 10^18`, ctx.span);
-  const out: [bigint, number][] = [];
-  const take = (p: bigint) => {
-    let e = 0;
-    while (n % p === 0n) {
-      n /= p;
-      e++;
-    }
-    if (e) out.push([p, e]);
-  };
-  take(2n);
-  take(3n);
-  for (let p = 5n, step = 2n; p * p <= n; p += step, step = 6n - step) {
-    ctx.tick();
-    take(p);
-    if (n > 1n && isPrime(n)) break;
-  }
-  if (n > 1n) out.push([n, 1]);
-  return out;
+/** Prime factorisation by the engine (n ≤ 10^24; the run's limits stop a long one). */
+function factorize(n: bigint, ctx: CallContext, fn: string): Array<[bigint, number]> {
+  if (n > FACTOR_MAX) throw limitError(`${fn}: factoring is limited to n ≤ 10^24`, ctx.span);
+  return factorInteger(n, ctx.work(`factoring ${n}`));
 }
 
 const core: Builtin[] = [
@@ -117,7 +101,7 @@ const core: Builtin[] = [
   },
   {
     name: 'totient', area: 'numbers', minArgs: 1, maxArgs: 1,
-    signature: 'totient(n) → integer', doc: "Euler's φ(n), by trial-division factoring (n ≤ 10^18).",
+    signature: 'totient(n) → integer', doc: "Euler's φ(n), from the prime factorisation (n ≤ 10^24).",
     example: { source: 'totient(30)', result: '8' },
     call: (a, c) => {
       const n = argInt(a, 0, c, 'totient');
@@ -129,7 +113,7 @@ const core: Builtin[] = [
   },
   {
     name: 'factor', area: 'numbers', minArgs: 1, maxArgs: 1,
-    signature: 'factor(n) → table (prime, exponent)', doc: 'Prime factorisation of n ≥ 1 (trial division, n ≤ 10^18).',
+    signature: 'factor(n) → table (prime, exponent)', doc: 'Prime factorisation of n ≥ 1 (trial division, then Pollard\'s rho; n ≤ 10^24).',
     example: { source: 'factor(360)', result: 'table (prime, exponent): (2, 3), (3, 2), (5, 1)' },
     call: (a, c) => {
       const n = argInt(a, 0, c, 'factor');
