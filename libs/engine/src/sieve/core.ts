@@ -44,11 +44,11 @@ const WORDS = new Int32Array(SEGMENT_BUFFER);
 /**
  * Segmented sieve of Eratosthenes on the mod-30 wheel over [a, b] (safe integers, 0 ≤ a ≤ b,
  * b < 2^53): one byte per 30 integers, segments of SEGMENT_BYTES; the multiples of 7 … 47 removed by
- * writing word patterns; every sieving prime 53 ≤ p < LARGE_PRIME_BOUND crossed off per wheel residue class (eight progressions of step p
- * bytes, unrolled), the larger ones by a bucket sieve. `sieving` must hold every prime ≤ √b in
- * increasing order (more are ignored). Counts primes, the given patterns (n ≥ a, n + max H ≤ b) and,
- * when asked, the gap histogram and the record gaps. `hooks` are called every
- * SEGMENTS_PER_REPORT segments and once with fraction 1 at the end.
+ * writing word patterns; every sieving prime 53 ≤ p < LARGE_PRIME_BOUND crossed off per wheel
+ * residue class (eight progressions of step p bytes, unrolled), the larger ones by a bucket sieve.
+ * `sieving` must hold every prime ≤ √b in increasing order (more are ignored). Counts primes, the
+ * given patterns (n ≥ a, n + max H ≤ b) and, when asked, the gap histogram and the record gaps.
+ * `hooks` are called every SEGMENTS_PER_REPORT segments and once with fraction 1 at the end.
  * @throws EngineError(limit) when `hooks.shouldStop` answers true (or whatever it throws).
  */
 export function sieveCore(
@@ -119,7 +119,7 @@ export function sieveCore(
   const buf = BUF;
   const u32 = WORDS;
 
-  // Sieving primes from 47 up: next byte of each of the 8 residue-class progressions, and its mask.
+  // Sieving primes above LAST_PATTERN_PRIME: next byte of each of the 8 residue-class progressions, and its mask.
   let firstSieving = 0;
   while (firstSieving < sieving.length && sieving[firstSieving]! <= LAST_PATTERN_PRIME) firstSieving++;
   let lastSieving = firstSieving;

@@ -4,7 +4,7 @@ import { CLASS_STEP, firstCofactor, PRODUCT_MASK, PRODUCT_RESIDUE } from './whee
 
 // The segment and the crossing state as module constants (see SEGMENT_BUFFER: why not parameters;
 // for the state arrays it spares the per-prime loads of their storage and length). Crossing prime i
-// (the i-th sieving prime from 47 on) is PRIMES[i]; its progression in residue class c is at byte
+// (the i-th sieving prime above LAST_PATTERN_PRIME) is PRIMES[i]; its progression in residue class c is at byte
 // NEXT[8i + c] with mask MASKS[8i + c].
 const BUF = new Uint8Array(SEGMENT_BUFFER);
 const PRIMES = new Int32Array(CROSSING_PRIMES_MAX);

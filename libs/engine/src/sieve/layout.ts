@@ -8,7 +8,7 @@ export const SMALL_PRIME_BOUND = 1 << 11;
 /** Sieving primes from this bound on go to the bucket sieve (fewer than one hit per class per segment). */
 export const LARGE_PRIME_BOUND = 1 << 19;
 
-/** π(LARGE_PRIME_BOUND) = π(2^19) = 43 390 (OEIS A007053): more than the crossed-off primes 47 ≤ p < 2^19. */
+/** π(LARGE_PRIME_BOUND) = π(2^19) = 43 390 (OEIS A007053): more than the crossed-off primes 53 ≤ p < 2^19. */
 export const CROSSING_PRIMES_MAX = 43_390;
 
 /** Bytes per sieve segment (each byte spans 30 integers); sized for the L2 cache. */
