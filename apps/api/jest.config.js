@@ -26,7 +26,7 @@ module.exports = {
   // Our libraries are read from source, like vitest does.
   moduleNameMapper: {
     '^@cribra/engine/node$': '<rootDir>/../../libs/engine/src/node/index.ts',
-    '^@cribra/(engine|lang|contracts)$': '<rootDir>/../../libs/$1/src/index.ts',
+    '^@cribra/(engine|lang|contracts|pg-listen)$': '<rootDir>/../../libs/$1/src/index.ts',
     // chevrotain is ESM only (its helper packages export an "import" entry only, which Jest cannot
     // resolve); its single-file bundle is compiled to CommonJS by the transform below instead.
     '^chevrotain$': '<rootDir>/../../node_modules/chevrotain/lib/chevrotain.mjs',

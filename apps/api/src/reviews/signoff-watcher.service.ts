@@ -2,7 +2,7 @@ import { Inject, Injectable, Logger, OnModuleDestroy, OnModuleInit } from '@nest
 import type { ConfigType } from '@nestjs/config';
 import type { Notification } from 'pg';
 import { appConfig } from '../config/app.config';
-import { PgListener } from '../database/pg-listener';
+import { PgListener } from '@cribra/pg-listen';
 import { ReviewsService } from './reviews.service';
 
 const FINAL = new Set(['succeeded', 'failed', 'cancelled']);
@@ -25,7 +25,7 @@ export class SignoffWatcherService implements OnModuleInit, OnModuleDestroy {
     @Inject(appConfig.KEY) cfg: ConfigType<typeof appConfig>,
     private readonly reviews: ReviewsService,
   ) {
-    this.listener = new PgListener(cfg.databaseUrl, ['cribra_notebooks', 'cribra_runs'], (msg) => this.heard(msg), this.logger);
+    this.listener = new PgListener({ databaseUrl: cfg.databaseUrl, channels: ['cribra_notebooks', 'cribra_runs'], onNotification: (msg) => this.heard(msg), log: this.logger });
   }
 
   async onModuleInit(): Promise<void> {

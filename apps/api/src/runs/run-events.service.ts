@@ -4,7 +4,7 @@ import type { Notification } from 'pg';
 import { Observable, Subject, filter, interval, map, merge } from 'rxjs';
 import type { NotebookEvent, RunProgressEvent } from '@cribra/contracts';
 import { appConfig } from '../config/app.config';
-import { PgListener } from '../database/pg-listener';
+import { PgListener } from '@cribra/pg-listen';
 
 /** Shape Nest's @Sse() expects. */
 export interface SseMessage {
@@ -24,7 +24,7 @@ export class RunEventsService implements OnModuleInit, OnModuleDestroy {
   private readonly listener: PgListener;
 
   constructor(@Inject(appConfig.KEY) cfg: ConfigType<typeof appConfig>) {
-    this.listener = new PgListener(cfg.databaseUrl, ['cribra_runs', 'cribra_notebooks'], (msg) => this.heard(msg), this.logger);
+    this.listener = new PgListener({ databaseUrl: cfg.databaseUrl, channels: ['cribra_runs', 'cribra_notebooks'], onNotification: (msg) => this.heard(msg), log: this.logger });
   }
 
   async onModuleInit(): Promise<void> {
