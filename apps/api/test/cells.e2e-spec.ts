@@ -54,6 +54,13 @@ describe('cells', () => {
     expect(late.body.details).toMatchObject({ reason: 'stale_revision', current: { id: cell.id, revision: 2, source: 'primorial(11)' } });
     const kind = await owner.client.call('put', `/api/cells/${cell.id}`, { revision: 2, kind: 'claim' });
     expect(kind.body).toMatchObject({ kind: 'claim', revision: 3 });
+    // Each accepted save is in the notebook's audit, with the cell revision it made; the refused one is not.
+    const audit = (await owner.client.call('get', `/api/notebooks/${id}/audit`)).body as Array<{ action: string; actor: { id: string }; details: Record<string, unknown> }>;
+    const saves = audit.filter((e) => e.action === 'cell.update').reverse();
+    expect(saves.map((e) => [e.actor.id, e.details])).toEqual([
+      [editor.id, { cellId: cell.id, revision: 2, fields: ['source'] }],
+      [owner.id, { cellId: cell.id, revision: 3, fields: ['kind'] }],
+    ]);
   });
 
   it('refuses bad input (400), missing cells (404), viewers and outsiders (403)', async () => {

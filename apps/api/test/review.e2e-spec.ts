@@ -170,6 +170,10 @@ describe('the review flow', () => {
     // The owner asked for review: the audit names them as the actor.
     const request = audit.body.find((e: { action: string }) => e.action === 'review.request') as { actor: { id: string } | null };
     expect(request.actor?.id).toBe(ownerUser.id);
+    // A sign-off names the notebook revision it signed beside the digest.
+    const signoff = audit.body.find((e: { action: string }) => e.action === 'review.signoff') as { details: { notebookRevision: unknown; revisionDigest: unknown } };
+    expect(signoff.details.notebookRevision).toBe((await owner.call('get', `/api/notebooks/${nb.id}`)).body.revision);
+    expect(typeof signoff.details.revisionDigest).toBe('string');
   });
 
   it('asking for changes returns the notebook to draft; a sign-off needs a finished re-verify', async () => {

@@ -83,11 +83,13 @@ export class CellsService {
       const [rows] = await m.query(
         `UPDATE cells SET source = coalesce($3, source), kind = coalesce($4, kind), revision = revision + 1,
                 author_id = $5, updated_at = now()
-          WHERE id = $1 AND revision = $2 RETURNING notebook_id`,
+          WHERE id = $1 AND revision = $2 RETURNING notebook_id, revision`,
         [id, body.revision, body.source ?? null, body.kind ?? null, actor.id],
       );
       if (!rows.length) return false;
       await this.bumpNotebook(m, rows[0].notebook_id);
+      const fields = [...(body.source !== undefined ? ['source'] : []), ...(body.kind !== undefined ? ['kind'] : [])];
+      await this.audit.record(actor.id, 'cell.update', rows[0].notebook_id, { cellId: id, revision: rows[0].revision, fields }, m);
       return true;
     });
     if (!updated) await this.stale(id, body.revision);

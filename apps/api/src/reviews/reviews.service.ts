@@ -243,7 +243,7 @@ export class ReviewsService {
         actor.id,
         body.decision === 'signoff' ? 'review.signoff' : 'review.changes_requested',
         notebookId,
-        { reviewId: id, revisionDigest: digest, verificationId: body.verificationId ?? null },
+        { reviewId: id, revisionDigest: digest, notebookRevision: nb.revision, verificationId: body.verificationId ?? null },
         m,
       );
       return id as string;

@@ -19,6 +19,11 @@ describe('auditSentence', () => {
     expect(say('export.lock_markdown')).toBe('Ada Grey exported the lock record as Markdown');
     expect(say('export.latex', { revision: 4 })).toBe('Ada Grey exported the notebook as LaTeX');
     expect(say('upload.create', { name: 'zeros.csv' })).toBe('Ada Grey uploaded the file zeros.csv');
+    expect(say('cell.update', { cellId: 'c1', revision: 3, fields: ['source'] })).toBe('Ada Grey edited a cell (its revision 3)');
+    expect(say('cell.update', { cellId: 'c1', revision: 4, fields: ['kind'] })).toBe('Ada Grey changed the kind of a cell (its revision 4)');
+    expect(say('cell.update', { cellId: 'c1', revision: 5, fields: ['source', 'kind'] })).toBe('Ada Grey edited a cell and changed its kind (its revision 5)');
+    expect(say('review.signoff', { revisionDigest: 'a'.repeat(64), notebookRevision: 7 })).toBe('Ada Grey signed off revision 7 with digest aaaaaaaaaaaa');
+    expect(say('review.signoff', { revisionDigest: 'a'.repeat(64) })).toBe('Ada Grey signed off the revision with digest aaaaaaaaaaaa');
   });
 
   it('keeps an unknown action visible', () => {

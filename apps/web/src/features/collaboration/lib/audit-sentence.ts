@@ -51,6 +51,12 @@ export function auditSentence(e: AuditEventView, names: NameLookup = new Map()):
       return digest ? `${who} locked the notebook at the revision with digest ${digest}` : `${who} locked the notebook`;
     case 'cell.create':
       return str(d.kind) ? `${who} added a ${d.kind as string} cell` : `${who} added a cell`;
+    case 'cell.update': {
+      const fields = Array.isArray(d.fields) ? d.fields : [];
+      const revision = typeof d.revision === 'number' ? ` (its revision ${d.revision})` : '';
+      if (fields.includes('kind') && !fields.includes('source')) return `${who} changed the kind of a cell${revision}`;
+      return `${who} edited a cell${fields.includes('kind') ? ' and changed its kind' : ''}${revision}`;
+    }
     case 'cell.delete':
       return `${who} deleted a cell`;
     case 'cell.reorder':
@@ -83,8 +89,10 @@ export function auditSentence(e: AuditEventView, names: NameLookup = new Map()):
       return `${who} accepted the invitation${role ? ` as ${role}` : ''}`;
     case 'review.request':
       return `${who} asked for review`;
-    case 'review.signoff':
-      return digest ? `${who} signed off the revision with digest ${digest}` : `${who} signed off`;
+    case 'review.signoff': {
+      const revision = typeof d.notebookRevision === 'number' ? `revision ${d.notebookRevision}` : 'the revision';
+      return digest ? `${who} signed off ${revision} with digest ${digest}` : `${who} signed off`;
+    }
     case 'review.changes_requested':
       return `${who} asked for changes`;
     case 'review.signoff_void':
