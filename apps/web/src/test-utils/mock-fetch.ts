@@ -3,6 +3,8 @@ import { vi } from 'vitest';
 export interface Reply {
   status?: number;
   body?: unknown;
+  /** Answer only once this settles (to hold one request back while others go through). */
+  after?: Promise<unknown>;
 }
 export type Handler = (req: { method: string; url: string; headers: Record<string, string>; body: unknown }) => Reply;
 
@@ -32,6 +34,7 @@ export function mockFetch(routes: Record<string, Handler | Reply | Reply[]>) {
     else if (typeof route === 'function') reply = route(call);
     else if (Array.isArray(route)) reply = route.length > 1 ? route.shift()! : route[0];
     else reply = route;
+    if (reply.after) await reply.after;
     const status = reply.status ?? 200;
     return new Response(status === 204 || reply.body === undefined ? null : JSON.stringify(reply.body), {
       status,

@@ -163,6 +163,27 @@ describe('CommentsSection: mentions', () => {
     expect(calls.find((c) => c.method === 'POST')?.body).toMatchObject({ body: 'No one in particular.', mentions: [] });
   });
 
+  it('clears each reply box once its own reply is accepted, also when two are under way at once', async () => {
+    let release = (): void => undefined;
+    const held = new Promise<void>((resolve) => (release = resolve));
+    const second: CommentThreadView = { ...thread([]), id: 't2' };
+    setup({
+      'GET /api/notebooks/n1/threads': { body: [thread([mine]), second] },
+      'POST /api/threads/t1/comments': { status: 201, body: comment({ id: 'c9' }), after: held },
+      'POST /api/threads/t2/comments': { status: 201, body: comment({ id: 'c8', threadId: 't2' }) },
+    });
+    const [first, other] = await screen.findAllByLabelText('Reply', { selector: 'textarea' });
+    await userEvent.type(first!, 'First reply');
+    await userEvent.type(other!, 'Second reply');
+    const [sendFirst, sendOther] = screen.getAllByRole('button', { name: 'Send' });
+    await userEvent.click(sendFirst!);
+    await userEvent.click(sendOther!);
+    await waitFor(() => expect((other as HTMLTextAreaElement).value).toBe(''));
+    expect((first as HTMLTextAreaElement).value).toBe('First reply');
+    release();
+    await waitFor(() => expect((first as HTMLTextAreaElement).value).toBe(''));
+  });
+
   it('highlights the mentioned names in shown comments', async () => {
     setup();
     const region = await commentBy('Teodor Quill');

@@ -36,7 +36,9 @@ export function CommentsSection({ notebook, canWrite }: { notebook: NotebookView
       {threads.data?.length === 0 && <Typography color="text.secondary">No comments yet.</Typography>}
       {threads.data?.map((t) => (
         <ThreadCard key={t.id} thread={t} notebook={notebook} canWrite={canWrite} userId={me.data?.id} members={members}
-          onReply={(b, sent) => actions.addComment.mutate({ threadId: t.id, ...b }, { onSuccess: sent })}
+          // Per reply, not per mutation: mutate's own onSuccess fires only for the latest call, so
+          // a reply sent while another was under way would keep its text after being accepted.
+          onReply={(b, sent) => void actions.addComment.mutateAsync({ threadId: t.id, ...b }).then(sent, () => undefined)}
           onResolve={(resolved) => actions.resolve.mutate({ threadId: t.id, resolved })} />
       ))}
       {canWrite && (
