@@ -113,6 +113,25 @@ describe('NotebookSettingsDialog', () => {
     ]);
   });
 
+  it('applies the changes onto the current revision without asking when only cells changed meanwhile', async () => {
+    const { calls } = mockFetch({
+      'GET /api/auth/csrf': { body: { token: 't' } },
+      'PATCH /api/notebooks/n1': (req) =>
+        (req.body as { revision: number }).revision === 7
+          ? apiError(409, 'Conflict', 'The notebook changed since revision 7', { reason: 'stale_revision', current: summary({ revision: 12, cellCount: 3 }) })
+          : { body: view({ revision: 13, summary: 'Gaps of 6 only.' }) },
+    });
+    const { onClose } = open();
+    await replace(/^Summary/, 'Gaps of 6 only.');
+    await userEvent.click(screen.getByRole('button', { name: 'Save settings' }));
+    await waitFor(() => expect(onClose).toHaveBeenCalled());
+    expect(screen.queryByRole('alert')).toBeNull();
+    expect(patches(calls)).toEqual([
+      { revision: 7, summary: 'Gaps of 6 only.' },
+      { revision: 12, summary: 'Gaps of 6 only.' },
+    ]);
+  });
+
   it('says so when the notebook was locked meanwhile, keeps the input and offers no retry', async () => {
     mockFetch({
       'GET /api/auth/csrf': { body: { token: 't' } },

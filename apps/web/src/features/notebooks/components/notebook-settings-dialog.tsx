@@ -21,6 +21,9 @@ interface Props {
   onClose: () => void;
 }
 
+const sameSettings = (a: NotebookSettingsForm, b: NotebookSettingsForm): boolean =>
+  (Object.keys(a) as NotebookSettingsField[]).every((k) => a[k] === b[k]);
+
 /** Title, summary, tags and required sign-offs of a notebook. Mount it to open it (the form starts from `notebook`). */
 export function NotebookSettingsDialog({ notebook, onClose }: Props) {
   const [start] = useState(() => settingsFormOf(notebook));
@@ -38,7 +41,7 @@ export function NotebookSettingsDialog({ notebook, onClose }: Props) {
     setProblems((p) => ({ ...p, [field]: undefined }));
   };
 
-  const save = (fromRevision: number) => {
+  const save = (fromRevision: number, quietRetries = 3) => {
     const found = settingsProblems(form);
     setProblems(found);
     setFailure(undefined);
@@ -49,6 +52,12 @@ export function NotebookSettingsDialog({ notebook, onClose }: Props) {
       onSuccess: onClose,
       onError: (err) => {
         const current = staleNotebook(err);
+        // The revision also moves with cell edits and runs: when none of these settings changed
+        // meanwhile there is nothing to decide, so the same changes go onto the current revision.
+        if (current && current.status !== 'locked' && quietRetries > 0 && sameSettings(settingsFormOf(current), start)) {
+          setRevision(current.revision);
+          return save(current.revision, quietRetries - 1);
+        }
         if (current) return setConflict(current);
         if (lockedNotebook(err)) return setLockedMeanwhile(true);
         const fields: NotebookSettingsProblems = {};
