@@ -184,6 +184,29 @@ describe('CommentsSection: mentions', () => {
     await waitFor(() => expect((first as HTMLTextAreaElement).value).toBe(''));
   });
 
+  it('starts a thread on one output of a cell\'s latest run', async () => {
+    const cell = { id: 'cell-1', kind: 'query', latestRun: { id: 'run-9', outputs: [{ kind: 'value' }, { kind: 'table' }] } };
+    const mocked = mockFetch({
+      'GET /api/auth/me': { body: { ...ilse, email: 'ilse@example.org', siteRole: 'member', createdAt: '2025-01-01T00:00:00Z' } },
+      'GET /api/auth/csrf': { body: { token: 't' } },
+      'GET /api/notebooks/n1/threads': { body: [] },
+      'POST /api/notebooks/n1/threads': { status: 201, body: thread([]) },
+    });
+    renderWithApp(<CommentsSection notebook={{ ...notebook, cells: [cell] } as unknown as NotebookView} canWrite />);
+    await userEvent.click(await screen.findByRole('combobox', { name: 'About' }));
+    expect(screen.getAllByRole('option').map((o) => o.textContent)).toEqual([
+      'The whole notebook', 'Cell 1 (query)', 'Cell 1, output 1 (value)', 'Cell 1, output 2 (table)',
+    ]);
+    await userEvent.click(screen.getByRole('option', { name: 'Cell 1, output 2 (table)' }));
+    await userEvent.type(screen.getByLabelText('Comment', { selector: 'textarea' }), 'Row 3 disagrees with the closed form.');
+    await userEvent.click(screen.getByRole('button', { name: 'Start thread' }));
+    await waitFor(() => expect(mocked.calls.some((c) => c.method === 'POST')).toBe(true));
+    expect(mocked.calls.find((c) => c.method === 'POST')?.body).toMatchObject({
+      anchor: { kind: 'output', cellId: 'cell-1', runId: 'run-9', outputIndex: 1 },
+      body: 'Row 3 disagrees with the closed form.',
+    });
+  });
+
   it('highlights the mentioned names in shown comments', async () => {
     setup();
     const region = await commentBy('Teodor Quill');

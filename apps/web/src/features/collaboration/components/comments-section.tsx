@@ -10,7 +10,17 @@ import { useMentionDraft } from '../hooks/use-mention-draft';
 import { MentionField } from './mention-field';
 import { ThreadCard } from './thread-card';
 
-/** Comment threads of the notebook, per cell or for the whole notebook, in the side panel. */
+// The "About" choice as one string: 'notebook', a cell id, or output/<cell>/<run>/<index>.
+const outputTarget = (cellId: string, runId: string, index: number): string => `output/${cellId}/${runId}/${index}`;
+
+function anchorOf(target: string): CommentAnchor {
+  if (target === 'notebook') return { kind: 'notebook' };
+  const [head, cellId, runId, index] = target.split('/');
+  if (head === 'output') return { kind: 'output', cellId: cellId!, runId: runId!, outputIndex: Number(index) };
+  return { kind: 'cell', cellId: target };
+}
+
+/** Comment threads of the notebook, per cell, per output of a cell's latest run or for the whole notebook, in the side panel. */
 export function CommentsSection({ notebook, canWrite }: { notebook: NotebookView; canWrite: boolean }) {
   const threads = useThreads(notebook.id);
   const actions = useCommentActions(notebook.id);
@@ -23,7 +33,7 @@ export function CommentsSection({ notebook, canWrite }: { notebook: NotebookView
   const start = () => {
     const body = draft.text.trim();
     if (!body) return;
-    const anchor: CommentAnchor = target === 'notebook' ? { kind: 'notebook' } : { kind: 'cell', cellId: target };
+    const anchor = anchorOf(target);
     actions.createThread.mutate({ anchor, body, mentions: draft.mentions(members) }, { onSuccess: draft.reset });
   };
 
@@ -45,7 +55,14 @@ export function CommentsSection({ notebook, canWrite }: { notebook: NotebookView
         <Stack spacing={1} component="section" aria-label="New comment">
           <TextField select label="About" value={target} onChange={(e) => setTarget(e.target.value)}>
             <MenuItem value="notebook">The whole notebook</MenuItem>
-            {notebook.cells.map((c, i) => <MenuItem key={c.id} value={c.id}>Cell {i + 1} ({c.kind})</MenuItem>)}
+            {notebook.cells.flatMap((c, i) => [
+              <MenuItem key={c.id} value={c.id}>Cell {i + 1} ({c.kind})</MenuItem>,
+              ...(c.latestRun?.outputs ?? []).map((o, j) => (
+                <MenuItem key={`${c.id}/${j}`} value={outputTarget(c.id, c.latestRun!.id, j)} sx={{ pl: 4 }}>
+                  Cell {i + 1}, output {j + 1} ({o.kind})
+                </MenuItem>
+              )),
+            ])}
           </TextField>
           <MentionField label="Comment" value={draft.text} onChange={draft.setText} members={members} onPick={draft.pick} minRows={2}
             helperText="Markdown with $maths$. Type @ to mention a member." />
