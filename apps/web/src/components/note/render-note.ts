@@ -18,14 +18,17 @@ const blockMath: TokenizerAndRendererExtension = {
   renderer: (token) => `<div class="note-math">${tex(token.text as string, true)}</div>`,
 };
 
+/** Where an inline extension may begin: the first `ch` in the source, if any. */
+const startAt = (ch: string) => (src: string): number | undefined => {
+  const i = src.indexOf(ch);
+  return i < 0 ? undefined : i;
+};
+
 // `$ … $` inside a line: inline maths. A `$` followed by a space or a digit run like "$5" is not maths.
 const inlineMath: TokenizerAndRendererExtension = {
   name: 'inlineMath',
   level: 'inline',
-  start: (src) => {
-    const i = src.indexOf('$');
-    return i < 0 ? undefined : i;
-  },
+  start: startAt('$'),
   tokenizer(src) {
     // `$$ … $$` inside a line of text: display maths in place.
     const d = /^\$\$([^$]+?)\$\$/.exec(src);
@@ -49,10 +52,7 @@ function mentionExtension(names: string[]): TokenizerAndRendererExtension {
   return {
     name: 'mention',
     level: 'inline',
-    start: (src) => {
-      const i = src.indexOf('@');
-      return i < 0 ? undefined : i;
-    },
+    start: startAt('@'),
     tokenizer(src) {
       if (src[0] !== '@') return undefined;
       const name = sorted.find((n) => src.startsWith(n, 1) && !/[\p{L}\p{N}]/u.test(src.charAt(n.length + 1)));
