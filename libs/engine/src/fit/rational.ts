@@ -1,16 +1,10 @@
 import { domainError } from '../errors';
+import { gcd } from '../primes/gcd';
 
 /** An exact rational number num/den with den > 0 and gcd(num, den) = 1. */
 export interface Rational {
   readonly num: bigint;
   readonly den: bigint;
-}
-
-function gcd(a: bigint, b: bigint): bigint {
-  if (a < 0n) a = -a;
-  if (b < 0n) b = -b;
-  while (b !== 0n) [a, b] = [b, a % b];
-  return a;
 }
 
 /**

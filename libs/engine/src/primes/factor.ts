@@ -1,5 +1,6 @@
 import { inputError, limitError } from '../errors';
 import { checkStop, type WorkHooks } from '../sieve/progress';
+import { gcd } from './gcd';
 import { isPrime } from './is-prime';
 import { primesUpTo } from './small-primes';
 
@@ -15,11 +16,6 @@ const TRIAL_PRIMES = Array.from(primesUpTo(1 << 12), (p) => BigInt(p));
 
 /** Rho steps between two polls of the stop hook. */
 const STEPS_PER_POLL = 1 << 14;
-
-const gcd = (a: bigint, b: bigint): bigint => {
-  while (b !== 0n) [a, b] = [b, a % b];
-  return a < 0n ? -a : a;
-};
 
 /**
  * The prime factorisation of 1 ≤ n ≤ 10^24 as [prime, exponent] pairs in increasing order of the

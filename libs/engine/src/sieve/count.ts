@@ -103,10 +103,7 @@ export function countPrimesAndTwins(from: number, to: number, stats: Float64Arra
     u = twos ^ twosA; fours += popcount32((twos & twosA) | (u & h)); twos = u ^ h;
   }
   let count = 4 * fours + 2 * popcount32(twos) + popcount32(ones);
-  for (; w < to; w++) {
-    const P = u32[w]!;
-    count += popcount32(P & ((P >>> 1) | (u32[w + 1]! << 31)) & 0x94949494);
-  }
+  for (; w < to; w++) count += popcount32(twinBits(w));
   stats[at] += count;
   // A second pass over the same words, still in the L1 cache.
   return countPrimes(from, to);
