@@ -50,7 +50,7 @@ export function evaluate(source: string, options: RunOptions = {}): RunResult {
   const parsed = parse(source);
   if (parsed.errors.length > 0) {
     const diagnostics = parsed.errors.map((e) => e.toJSON());
-    return { ok: false, outputs: [], digest: outputsDigest([]), error: diagnostics[0]!, diagnostics, steps: 0, millis: Date.now() - started, ...base };
+    return { ok: false, outputs: [], digest: outputsDigest([]), error: firstOfAll(diagnostics), diagnostics, steps: 0, millis: Date.now() - started, ...base };
   }
   const interp = new Interpreter({ limits, data: options.data ?? null, onProgress: options.onProgress, shouldStop: options.shouldStop });
   let error: RunErrorJson | null = null;
@@ -61,6 +61,15 @@ export function evaluate(source: string, options: RunOptions = {}): RunResult {
   }
   const outputs = interp.outputs;
   return { ok: error === null, outputs, digest: outputsDigest(outputs), error, diagnostics: [], steps: interp.steps, millis: Date.now() - started, ...base };
+}
+
+/** The first syntax error, its message naming the lines of the others (all of them are in `diagnostics`). */
+function firstOfAll(diagnostics: SiftErrorJson[]): SiftErrorJson {
+  const [first, ...rest] = diagnostics;
+  if (!rest.length) return first!;
+  const lines = [...new Set(rest.map((d) => d.line ?? 1))];
+  const where = lines.length === 1 ? `on line ${lines[0]}` : `on lines ${lines.slice(0, -1).join(', ')} and ${lines.at(-1)}`;
+  return { ...first!, message: `${first!.message} (and ${rest.length} more syntax error${rest.length === 1 ? '' : 's'}, ${where})` };
 }
 
 function toRunError(e: unknown): RunErrorJson {

@@ -15,12 +15,12 @@ const table = (src: string, options?: Parameters<typeof run>[1]) => {
 // Each entry checks one builtin, by a published value (source named) or against a direct engine call.
 const cases: Record<string, () => void> = {
   // ---- numbers
-  isprime: () => {
-    expect(value('isprime(2^61 - 1)')).toBe('true'); // Mersenne prime M61 (OEIS A000043 lists 61)
-    expect(value('isprime(2^67 - 1)')).toBe('false'); // Cole 1903: 193707721 · 761838257287
+  prime: () => {
+    expect(value('prime(2^61 - 1)')).toBe('true'); // Mersenne prime M61 (OEIS A000043 lists 61)
+    expect(value('prime(2^67 - 1)')).toBe('false'); // Cole 1903: 193707721 · 761838257287
   },
-  nextprime: () => expect(value('nextprime(10^12)')).toBe('1000000000039'), // (from memory) least prime above 10^12
-  prevprime: () => expect(value('prevprime(100)')).toBe('97'),
+  primeafter: () => expect(value('primeafter(10^12)')).toBe('1000000000039'), // (from memory) least prime above 10^12
+  primebefore: () => expect(value('primebefore(100)')).toBe('97'),
   primorial: () => expect(value('[primorial(p) : p ∈ primes 2..13]')).toBe('[2, 6, 30, 210, 2310, 30030]'), // OEIS A002110
   totient: () => {
     expect(value('[totient(n) : n ∈ 1..10]')).toBe('[1, 1, 2, 2, 4, 2, 6, 4, 6, 4]'); // OEIS A000010
@@ -119,7 +119,7 @@ const cases: Record<string, () => void> = {
     expect(b.primeCount).toBe(78498);
     expect(b.patterns[0]!.count).toBe(8169);
   },
-  primepi: () => expect(value('[primepi(10^k) : k ∈ 1..6]')).toBe('[4, 25, 168, 1229, 9592, 78498]'), // OEIS A006880
+  primecount: () => expect(value('[primecount(10^k) : k ∈ 1..6]')).toBe('[4, 25, 168, 1229, 9592, 78498]'), // OEIS A006880
   π: () => expect(value('π(10^7)')).toBe('664579'), // OEIS A006880
   constellations: () => expect(value('constellations({0, 2, 6}, 1..1000)')).toBe('(pattern: {0, 2, 6}, count: 15, first: 5, last: 881)'), // OEIS A022004 (from memory)
   records: () => expect(table('records(1..1000)').rows).toEqual([['1', '2'], ['2', '3'], ['4', '7'], ['6', '23'], ['8', '89'], ['14', '113'], ['18', '523'], ['20', '887']]), // OEIS A005250 / A002386

@@ -6,7 +6,7 @@ import { formatValue } from '../values/format';
 import { bitLength, gcd, Rational } from '../values/rational';
 import { IntRange, SiftRecord, Table, Tuple, typeName, type Value } from '../values/types';
 import {
-  argInt, argNum, argRecord, argSeries, argString, argTable, argTuple, type Builtin, type CallContext, defineBuiltins,
+  argInt, argNum, argRecord, argSeries, argString, argTable, argTuple, type Builtin, type CallContext, defineBuiltins, oldSpelling,
 } from './registry';
 
 const cmp = (a: Value, b: Value, ctx: CallContext) => A.compareNum(a, b, 'order', ctx.span);
@@ -57,34 +57,22 @@ function factorize(n: bigint, ctx: CallContext, fn: string): Array<[bigint, numb
 const core: Builtin[] = [
   // ---------------------------------------------------------------- numbers
   {
-    name: 'isprime', area: 'numbers', minArgs: 1, maxArgs: 1,
-    signature: 'isprime(n) → boolean', doc: 'Whether n is prime (a proof below 3.3·10^24, a strong probable-prime test above).',
-    example: { source: 'isprime(2^61 - 1)', result: 'true' },
-    call: (a, c) => isPrime(argInt(a, 0, c, 'isprime')),
+    name: 'prime', area: 'numbers', minArgs: 1, maxArgs: 1, yieldsToCellNames: true,
+    signature: 'prime(n) → boolean', doc: 'Whether n is prime (a proof below 3.3·10^24, a strong probable-prime test above).',
+    example: { source: 'prime(2^61 - 1)', result: 'true' },
+    call: (a, c) => primeTest(a, c, 'prime'),
   },
   {
-    name: 'nextprime', area: 'numbers', minArgs: 1, maxArgs: 1,
-    signature: 'nextprime(n) → integer', doc: 'The least prime greater than n.',
-    example: { source: 'nextprime(100)', result: '101' },
-    call: (a, c) => {
-      let n = argInt(a, 0, c, 'nextprime');
-      A.checkBits(bitLength(n), 4096, 'nextprime argument', c.span);
-      if (n < 2n) return 2n;
-      do { n++; c.tick(); } while (!isPrime(n));
-      return n;
-    },
+    name: 'primeafter', area: 'numbers', minArgs: 1, maxArgs: 1, yieldsToCellNames: true,
+    signature: 'primeafter(n) → integer', doc: 'The least prime greater than n.',
+    example: { source: 'primeafter(100)', result: '101' },
+    call: (a, c) => primeAfter(a, c, 'primeafter'),
   },
   {
-    name: 'prevprime', area: 'numbers', minArgs: 1, maxArgs: 1,
-    signature: 'prevprime(n) → integer', doc: 'The largest prime less than n (n > 2).',
-    example: { source: 'prevprime(100)', result: '97' },
-    call: (a, c) => {
-      let n = argInt(a, 0, c, 'prevprime');
-      if (n <= 2n) throw domainError(`prevprime: there is no prime below ${n}`, c.span);
-      A.checkBits(bitLength(n), 4096, 'prevprime argument', c.span);
-      do { n--; c.tick(); } while (!isPrime(n));
-      return n;
-    },
+    name: 'primebefore', area: 'numbers', minArgs: 1, maxArgs: 1, yieldsToCellNames: true,
+    signature: 'primebefore(n) → integer', doc: 'The largest prime less than n (n > 2).',
+    example: { source: 'primebefore(100)', result: '97' },
+    call: (a, c) => primeBefore(a, c, 'primebefore'),
   },
   {
     name: 'primorial', area: 'numbers', minArgs: 1, maxArgs: 1,
@@ -368,6 +356,26 @@ const core: Builtin[] = [
   },
 ];
 
+function primeTest(a: Value[], c: CallContext, fn: string): boolean {
+  return isPrime(argInt(a, 0, c, fn));
+}
+
+function primeAfter(a: Value[], c: CallContext, fn: string): bigint {
+  let n = argInt(a, 0, c, fn);
+  A.checkBits(bitLength(n), 4096, `${fn} argument`, c.span);
+  if (n < 2n) return 2n;
+  do { n++; c.tick(); } while (!isPrime(n));
+  return n;
+}
+
+function primeBefore(a: Value[], c: CallContext, fn: string): bigint {
+  let n = argInt(a, 0, c, fn);
+  if (n <= 2n) throw domainError(`${fn}: there is no prime below ${n}`, c.span);
+  A.checkBits(bitLength(n), 4096, `${fn} argument`, c.span);
+  do { n--; c.tick(); } while (!isPrime(n));
+  return n;
+}
+
 function badInt(x: Value, c: CallContext, fn: string): never {
   throw typeError(`${fn}: expected integers, got ${typeName(x)}`, c.span);
 }
@@ -405,3 +413,11 @@ function roundWith(x: bigint | Rational | number, mode: 'floor' | 'ceil' | 'roun
 }
 
 defineBuiltins(core);
+
+// Old spellings (hidden): their messages keep the old name, so old cells give the same outputs.
+const named = (n: string) => core.find((b) => b.name === n)!;
+defineBuiltins([
+  oldSpelling(named('prime'), 'isprime', (a, c) => primeTest(a, c, 'isprime')),
+  oldSpelling(named('primeafter'), 'nextprime', (a, c) => primeAfter(a, c, 'nextprime')),
+  oldSpelling(named('primebefore'), 'prevprime', (a, c) => primeBefore(a, c, 'prevprime')),
+]);

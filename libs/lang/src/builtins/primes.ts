@@ -1,7 +1,7 @@
 import { combinePrimeBlockList, partHooks, type PrimeBlock, sievePrimeBlock } from '@cribra/engine';
 import { domainError, limitError } from '../errors';
 import { IntRange, SiftRecord, Table, Tuple } from '../values/types';
-import { argRange, argTuple, type Builtin, type CallContext, compactInt, defineBuiltins } from './registry';
+import { argRange, argTuple, type Builtin, type CallContext, compactInt, defineBuiltins, oldSpelling } from './registry';
 
 /** Longest piece sieved in one engine call (the pieces' summaries are combined exactly). */
 const BLOCK = 10_000_000_000n;
@@ -63,14 +63,14 @@ const primes: Builtin[] = [
     },
   },
   {
-    name: 'primepi', area: 'primes', minArgs: 1, maxArgs: 1,
-    signature: 'primepi(x) → integer  (also π(x))', doc: 'π(x), the number of primes ≤ x (segmented sieve, x ≤ 10^15).',
-    example: { source: 'π(10^6)', result: '78498' },
-    call: (a, c) => primePi(a[0], c, 'primepi'),
+    name: 'primecount', area: 'primes', minArgs: 1, maxArgs: 1, yieldsToCellNames: true,
+    signature: 'primecount(x) → integer  (also π(x))', doc: 'π(x), the number of primes ≤ x (segmented sieve, x ≤ 10^15).',
+    example: { source: 'primecount(10^6)', result: '78498' },
+    call: (a, c) => primePi(a[0], c, 'primecount'),
   },
   {
     name: 'π', area: 'primes', minArgs: 1, maxArgs: 1,
-    signature: 'π(x) → integer', doc: 'π(x), the number of primes ≤ x (same as primepi).',
+    signature: 'π(x) → integer', doc: 'π(x), the number of primes ≤ x (same as primecount).',
     example: { source: 'π(100)', result: '25' },
     call: (a, c) => primePi(a[0], c, 'π'),
   },
@@ -118,3 +118,5 @@ function primePi(x: unknown, c: CallContext, fn: string): bigint {
 }
 
 defineBuiltins(primes);
+// The old spelling (hidden): its messages keep the old name, so old cells give the same outputs.
+defineBuiltins([oldSpelling(primes.find((b) => b.name === 'primecount')!, 'primepi', (a, c) => primePi(a[0], c, 'primepi'))]);

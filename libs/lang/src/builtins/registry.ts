@@ -37,6 +37,16 @@ export interface Builtin {
   area: BuiltinArea;
   minArgs: number;
   maxArgs: number;
+  /**
+   * An old spelling kept so that existing and locked cells still run with the same outputs and
+   * digest: callable, but left out of allBuiltins() (completions, docs). Names the builtin to use instead.
+   */
+  aliasOf?: string;
+  /**
+   * A name added after cells could already use it for their own values: a cell's let, parameter or
+   * binder of this name hides the builtin instead of being refused, so that no existing cell breaks.
+   */
+  yieldsToCellNames?: boolean;
   call(args: Value[], ctx: CallContext): Value;
 }
 
@@ -46,12 +56,23 @@ export function defineBuiltins(list: Builtin[]): void {
   for (const b of list) registry.set(b.name, b);
 }
 
+/** The same builtin under its old spelling (hidden; `call` receives the spelling for its messages). */
+export function oldSpelling(b: Builtin, name: string, call: Builtin['call']): Builtin {
+  return { ...b, name, signature: b.signature.replace(b.name, name), aliasOf: b.name, yieldsToCellNames: false, call };
+}
+
 export function builtin(name: string): Builtin | undefined {
   return registry.get(name);
 }
 
+/** The builtins to offer and document, sorted by name (hidden old spellings left out). */
 export function allBuiltins(): Builtin[] {
-  return [...registry.values()].sort((a, b) => a.name.localeCompare(b.name));
+  return [...registry.values()].filter((b) => !b.aliasOf).sort((a, b) => a.name.localeCompare(b.name));
+}
+
+/** The hidden old spellings (each names its new builtin in `aliasOf`). */
+export function oldSpellings(): Builtin[] {
+  return [...registry.values()].filter((b) => b.aliasOf);
 }
 
 // ---- argument helpers: each names the argument and the function in its message

@@ -1,5 +1,6 @@
 import { EngineError } from '@cribra/engine';
 import { builtin, type CallContext } from '../builtins/registry';
+import { didYouMean } from './suggest';
 import { domainError, limitError, SiftError, type SourceSpan, typeError } from '../errors';
 import type { ChartOutput, SiftOutput, VerdictOutput, Binding } from '../outputs/types';
 import type { DataAccess } from '../provider/types';
@@ -34,6 +35,12 @@ class Scope {
       if (v !== undefined) return v;
     }
     return undefined;
+  }
+  /** Every name visible here (for "did you mean"). */
+  names(): string[] {
+    const out: string[] = [];
+    for (let s: Scope | null = this; s; s = s.parent) out.push(...s.vars.keys());
+    return out;
   }
 }
 
@@ -137,7 +144,8 @@ export class Interpreter {
   }
 
   private checkBindable(name: string, span: SourceSpan): void {
-    if (builtin(name)) throw typeError(`'${name}' is the name of a builtin; choose another name`, span);
+    const b = builtin(name);
+    if (b && !b.yieldsToCellNames) throw typeError(`'${name}' is the name of a builtin; choose another name`, span);
   }
 
   private show(v: Value, label: string | null, digits: number | null, span: SourceSpan): void {
@@ -247,7 +255,7 @@ export class Interpreter {
         const v = scope.lookup(e.name);
         if (v === undefined) {
           if (builtin(e.name)) throw typeError(`'${e.name}' is a builtin function; call it as ${e.name}(…)`, e.span);
-          throw typeError(`unknown name '${e.name}'`, e.span);
+          throw typeError(`unknown name '${e.name}'${didYouMean(e.name, scope.names())}`, e.span);
         }
         if (v instanceof UserFn) throw typeError(`'${e.name}' is a function; call it as ${e.name}(…)`, e.span);
         return v;
@@ -639,7 +647,7 @@ export class Interpreter {
     }
     if (local !== undefined) throw typeError(`'${e.name}' is a ${typeName(local)}, not a function`, e.nameSpan);
     const b = builtin(e.name);
-    if (!b) throw typeError(`unknown function '${e.name}'`, e.nameSpan);
+    if (!b) throw typeError(`unknown function '${e.name}'${didYouMean(e.name, scope.names())}`, e.nameSpan);
     if (e.args.length < b.minArgs || e.args.length > b.maxArgs) {
       const want = b.minArgs === b.maxArgs ? `${b.minArgs}` : `${b.minArgs} to ${b.maxArgs}`;
       throw typeError(`${e.name} takes ${want} argument${b.maxArgs === 1 ? '' : 's'}, got ${e.args.length}: ${b.signature}`, e.span);

@@ -2,6 +2,7 @@ import '../builtins';
 import { builtin } from '../builtins/registry';
 import type { SiftErrorKind, SourceSpan } from '../errors';
 import type { Binder, Expr, Stmt } from '../syntax/ast';
+import { didYouMean } from '../runtime/suggest';
 import { parse } from '../syntax/parse';
 
 export interface Diagnostic {
@@ -36,7 +37,7 @@ function at(span: SourceSpan, kind: SiftErrorKind, message: string, severity: 'e
 function checkStmt(stmt: Stmt, env: Env, out: Diagnostic[]): void {
   switch (stmt.t) {
     case 'let': {
-      if (builtin(stmt.name)) out.push(at(stmt.span, 'type', `'${stmt.name}' is the name of a builtin; choose another name`));
+      if (refusedName(stmt.name)) out.push(at(stmt.span, 'type', `'${stmt.name}' is the name of a builtin; choose another name`));
       if (stmt.params) {
         const inner = new Map(env);
         for (const p of stmt.params) inner.set(p, { params: null });
@@ -66,18 +67,24 @@ function checkBinders(binders: Binder[], env: Env, out: Diagnostic[]): Env {
   for (const b of binders) {
     if (b.t === 'bind') {
       checkExpr(b.domain, inner, out);
-      if (builtin(b.name)) out.push(at(b.span, 'type', `'${b.name}' is the name of a builtin; choose another name`));
+      if (refusedName(b.name)) out.push(at(b.span, 'type', `'${b.name}' is the name of a builtin; choose another name`));
       inner.set(b.name, { params: null });
     } else checkExpr(b.cond, inner, out);
   }
   return inner;
 }
 
+/** A builtin's name a cell may not bind (names added later yield to the cell's own). */
+function refusedName(name: string): boolean {
+  const b = builtin(name);
+  return b !== undefined && !b.yieldsToCellNames;
+}
+
 function checkExpr(e: Expr, env: Env, out: Diagnostic[]): void {
   switch (e.t) {
     case 'name': {
       const v = env.get(e.name);
-      if (!v) out.push(at(e.span, 'type', builtin(e.name) ? `'${e.name}' is a builtin function; call it as ${e.name}(…)` : `unknown name '${e.name}'`));
+      if (!v) out.push(at(e.span, 'type', builtin(e.name) ? `'${e.name}' is a builtin function; call it as ${e.name}(…)` : `unknown name '${e.name}'${didYouMean(e.name, env.keys())}`));
       else if (v.params !== null) out.push(at(e.span, 'type', `'${e.name}' is a function; call it as ${e.name}(…)`));
       return;
     }
@@ -90,7 +97,7 @@ function checkExpr(e: Expr, env: Env, out: Diagnostic[]): void {
         return;
       }
       const b = builtin(e.name);
-      if (!b) out.push(at(e.nameSpan, 'type', `unknown function '${e.name}'`));
+      if (!b) out.push(at(e.nameSpan, 'type', `unknown function '${e.name}'${didYouMean(e.name, env.keys())}`));
       else if (e.args.length < b.minArgs || e.args.length > b.maxArgs) out.push(at(e.span, 'type', `${e.name} takes ${b.minArgs === b.maxArgs ? b.minArgs : `${b.minArgs} to ${b.maxArgs}`} arguments, got ${e.args.length}: ${b.signature}`));
       return;
     }
