@@ -47,6 +47,26 @@ describe('runs', () => {
     expect(again.status).toBe(409);
   });
 
+  it('refuses to queue a cell with syntax errors, listing every one of them (nothing reaches a runner)', async () => {
+    const bad = await addCell(owner, notebookId, 'let x = 1 +\nshow (2\nprimorial(5)');
+    const res = await owner.client.call('post', `/api/cells/${bad.id}/runs`);
+    expect(res.status).toBe(400);
+    expect(res.body.message).toMatch(/^The cell has 2 syntax errors; nothing was queued \(first: line 1, column 12: /);
+    expect(res.body.details).toEqual([{ field: 'source', messages: [
+      expect.stringMatching(/^line 1, column 12: the statement ends too early/),
+      "line 3, column 1: unexpected 'primorial': expected ')'",
+    ] }]);
+    expect((await owner.client.call('get', `/api/cells/${bad.id}/runs`)).body.total).toBe(0);
+
+    const nb = await createNotebook(owner);
+    const good = await addCell(owner, nb.id, 'primorial(3)');
+    await addCell(owner, nb.id, 'primorial(5) +');
+    const all = await owner.client.call('post', `/api/notebooks/${nb.id}/runs`);
+    expect(all.status).toBe(400);
+    expect(all.body.details).toEqual([{ field: 'cell 2', messages: [expect.stringMatching(/^line 1, column 15: /)] }]);
+    expect((await owner.client.call('get', `/api/cells/${good.id}/runs`)).body.total).toBe(0);
+  });
+
   describe('with a runner', () => {
     beforeAll(() => {
       stack.startRunner('runs-a');

@@ -9,6 +9,7 @@ export * from './outputs/types';
 export { outputsDigest, DIGEST_VERSION } from './outputs/digest';
 export { canonicalJson } from './outputs/canonical-json';
 export { valueJsonText, type ValueTextOptions } from './outputs/value-text';
+export { groupInteger, statesMoreThanChecked, verdictSentence, type VerdictContext } from './outputs/verdict-text';
 export { sha256Hex, sha256HexOfText } from './outputs/sha256';
 export { jsonToNumber } from './values/to-json';
 export * from './provider/types';

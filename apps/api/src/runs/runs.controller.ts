@@ -8,6 +8,7 @@ import { CellsService } from '../cells/cells.service';
 import { NotebookPolicyService } from '../members/notebook-policy.service';
 import { RunEventsService, type SseMessage } from './run-events.service';
 import { RunsService } from './runs.service';
+import { assertRunnable } from './syntax-check';
 
 @ApiTags('runs')
 @ApiCookieAuth()
@@ -28,6 +29,7 @@ export class RunsController {
     // One read of the cell serves both the permission check and the run (the accept path is hot).
     const cell = await this.runs.cellToRun(id);
     await this.policy.authorize(user, 'runs.create', cell.notebook_id);
+    if (cell.kind !== 'note') assertRunnable([{ source: cell.source }]);
     return this.runs.runCell(user, id, 'run', cell);
   }
 

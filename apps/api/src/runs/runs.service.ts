@@ -6,6 +6,7 @@ import { QUEUES, type Page, type RunCellJob, type RunProgressEvent, type RunPurp
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../members/notebook-policy.service';
 import { QueueService } from '../queue/queue.service';
+import { assertRunnable } from './syntax-check';
 import { SELECT_RUN_COLUMNS, loadRun, loadRuns, pageRuns, toRunView, type RunRow } from './run-views';
 
 /** A cells row as runCell reads it. */
@@ -87,12 +88,13 @@ export class RunsService {
     return toRunView(row);
   }
 
-  /** Queues every query and claim cell of the notebook, top to bottom. */
+  /** Queues every query and claim cell of the notebook, top to bottom; none when a cell does not parse (400). */
   async runAll(actor: Actor, notebookId: string, purpose: RunPurpose = 'run'): Promise<RunView[]> {
-    const cells: Array<{ id: string }> = await this.db.query(
-      `SELECT id FROM cells WHERE notebook_id = $1 AND kind <> 'note' ORDER BY position`,
+    const cells: Array<{ id: string; source: string; position: number }> = await this.db.query(
+      `SELECT id, source, position FROM cells WHERE notebook_id = $1 AND kind <> 'note' ORDER BY position`,
       [notebookId],
     );
+    assertRunnable(cells.map((c) => ({ source: c.source, where: `cell ${c.position + 1}` })));
     const ids: string[] = [];
     for (const c of cells) ids.push((await this.runCell(actor, c.id, purpose)).id);
     return loadRuns(this.db, ids);

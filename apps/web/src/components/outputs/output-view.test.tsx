@@ -44,12 +44,25 @@ describe('OutputView', () => {
     await waitFor(() => expect(writeText).toHaveBeenCalledWith('18446744073709551616'));
   });
 
-  it('says what range a holding claim was checked on and that it is not a proof', async () => {
+  it('says once what a holding claim showed: every case of its range checked', async () => {
     renderWithApp(<OutputView output={holds} />);
     const card = await screen.findByRole('region', { name: 'Claim holds' });
     expect(card.textContent).toContain('HOLDS');
-    expect(screen.getByTestId('verdict-range').textContent).toBe('Checked: p ∈ primes 3..97: 24 cases checked, from p = 3 to p = 97.');
-    expect(card.textContent).toMatch(/not a proof/);
+    expect(screen.getByTestId('verdict-range').textContent).toBe('holds for every p ∈ primes 3..97 (24 cases, every case checked)');
+    expect(card.textContent!.split('primes 3..97').length - 1).toBe(2); // the statement and the sentence, nothing more
+    expect(card.textContent).not.toContain(holds.summary);
+  });
+
+  it('says that the broader statement is not established when the claim name states more', async () => {
+    renderWithApp(<OutputView output={{ ...holds, label: 'admissible for every level' }} />);
+    expect((await screen.findByTestId('verdict-range')).textContent).toBe(
+      "holds for every p ∈ primes 3..97 (24 cases, every case checked); the claim's name states more than this range, and that broader statement is not established",
+    );
+  });
+
+  it('a claim without a range says it was checked once, with no empty "from … to"', async () => {
+    renderWithApp(<OutputView output={{ ...holds, over: null, checked: 1, first: [], last: [] }} />);
+    expect((await screen.findByTestId('verdict-range')).textContent).toBe('holds (a statement without a range, checked once)');
   });
 
   it('shows the counterexample of a failing claim', async () => {

@@ -2,9 +2,10 @@ import { Box, Chip, Paper, Typography } from '@mui/material';
 import { monoFont, palette } from '../../lib/design-tokens';
 import type { VerdictOutput } from '../../lib/sift-output';
 import { bindingText } from '../../lib/value-text';
-import { checkedRangeText, counterexampleText } from './verdict-text';
+import { verdictSentence } from '@cribra/lang';
+import { counterexampleText } from './verdict-text';
 
-/** A claim's verdict: holds on the range checked (evidence, not proof) or fails with its counterexample. */
+/** A claim's verdict: holds for every case of its range (all checked) or fails with its counterexample. */
 export function VerdictCard({ output }: { output: VerdictOutput }) {
   const colour = output.holds ? palette.holds : palette.fails;
   return (
@@ -22,21 +23,14 @@ export function VerdictCard({ output }: { output: VerdictOutput }) {
         {output.label && <Typography variant="h4" component="p">{output.label}</Typography>}
       </Box>
       <Typography sx={{ fontFamily: monoFont, mb: 1, wordBreak: 'break-word' }}>{output.statement}</Typography>
-      <Typography>{output.summary}</Typography>
-      <Typography color="text.secondary" sx={{ mt: 0.5 }} data-testid="verdict-range">
-        Checked: {checkedRangeText(output)}.
-      </Typography>
+      {/* One sentence says what was shown, the range once (the recorded summary stays in the digest). */}
+      <Typography data-testid="verdict-range">{verdictSentence(output)}</Typography>
       {!output.holds && output.counterexample && (
         <Box sx={{ mt: 1.5, p: 1.5, bgcolor: 'rgba(163, 50, 31, 0.06)', borderRadius: 1 }}>
           <Typography sx={{ fontWeight: 600 }}>Counterexample</Typography>
           <Typography sx={{ fontFamily: monoFont }}>{bindingText(output.counterexample.binding)}</Typography>
           <Typography color="text.secondary">{counterexampleText(output.counterexample)}</Typography>
         </Box>
-      )}
-      {output.holds && !/not a proof/i.test(output.summary) && (
-        <Typography variant="body2" color="text.secondary" sx={{ mt: 1, fontStyle: 'italic' }}>
-          Computed evidence on the range above only; it is not a proof of the claim beyond it.
-        </Typography>
       )}
     </Paper>
   );
