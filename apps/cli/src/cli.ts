@@ -2,6 +2,7 @@ import { EngineError } from '@cribra/engine';
 import { CliError } from './cli-error';
 import type { CommandIo } from './command';
 import { COMMANDS } from './commands/registry';
+import { CLI_TERMS, termLines } from './glossary';
 
 /** Exit code of usage and input errors (bad flag, bad number, limits, domain errors). */
 export const EXIT_USAGE = 2;
@@ -10,15 +11,24 @@ export const EXIT_INTERNAL = 3;
 
 function overview(): string {
   const width = Math.max(...COMMANDS.map((c) => c.name.length));
+  const termWidth = Math.max(...CLI_TERMS.map((t) => t.term.length));
   return [
     'usage: cribra <command> [flags]   (cribra <command> --help for its flags)',
     '',
-    ...COMMANDS.map((c) => `  ${c.name.padEnd(width)}  ${c.summary}`),
+    ...COMMANDS.map((c) => `  ${c.name.padEnd(width)}  ${c.summary}${c.aliases?.length ? ` (also: cribra ${c.aliases.join(', cribra ')})` : ''}`),
     '',
     'Common flags: --json (machine-readable output; big numbers as decimal strings), --help.',
-    'Integers may be written 1000, 1_000, 1e9 or 10^12.',
+    'Integers may be written 1000, 1_000, 1e9 or 10^12. Ranges --from A --to N include both ends.',
+    '',
+    'Terms (docs/glossary.md):',
+    ...CLI_TERMS.map((t) => `  ${t.term.padEnd(termWidth)}  ${t.meaning}`),
     '',
   ].join('\n');
+}
+
+/** The command called `name`, by its name or one of its aliases. */
+function findCommand(name: string) {
+  return COMMANDS.find((c) => c.name === name || c.aliases?.includes(name));
 }
 
 /** Runs `cribra` with the given arguments; returns the exit code. Never throws. */
@@ -32,13 +42,15 @@ export async function main(argv: readonly string[], io: CommandIo): Promise<numb
     io.out(overview());
     return 0;
   }
-  const command = COMMANDS.find((c) => c.name === name);
+  const command = findCommand(name);
   if (!command) {
     io.err(`cribra: unknown command "${name}" (commands: ${COMMANDS.map((c) => c.name).join(', ')})\n`);
     return EXIT_USAGE;
   }
   if (rest.includes('--help') || rest.includes('-h')) {
-    io.out(`usage: ${command.usage}\n${command.summary}\n`);
+    const aka = command.aliases?.length ? `also: ${command.aliases.map((a) => `cribra ${a}`).join(', ')}\n` : '';
+    const terms = command.terms?.length ? `terms:\n${termLines(command.terms).join('\n')}\n` : '';
+    io.out(`usage: ${command.usage}\n${command.summary}\n${aka}${terms}`);
     return 0;
   }
   try {

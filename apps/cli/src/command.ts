@@ -13,5 +13,9 @@ export interface Command {
   readonly name: string;
   readonly summary: string;
   readonly usage: string;
+  /** Other names the command answers to (the glossary's terms beside the names scripts already use). */
+  readonly aliases?: readonly string[];
+  /** Glossary terms its --help explains (see glossary.ts). */
+  readonly terms?: readonly string[];
   run(argv: readonly string[], io: CommandIo): Promise<number>;
 }

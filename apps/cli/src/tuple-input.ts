@@ -26,16 +26,20 @@ export function readTupleFile(path: string): bigint[] {
 }
 
 /**
- * The tuple given by `--<listFlag> 0,2,6` or `--file PATH` (exactly one of them).
+ * The tuple given by `--<listFlag> 0,2,6` (or `--tuple`, the glossary's name, where the command's
+ * flag is `--pattern`) or `--file PATH` (exactly one of them).
  * Duplicates are reported here, naming the value.
  * @throws CliError otherwise.
  */
 export function tupleFromFlags(flags: ParsedFlags, listFlag: string): bigint[] {
-  const list = flags[listFlag];
+  const names = listFlag === 'tuple' ? ['tuple'] : [listFlag, 'tuple'];
+  const given = names.filter((n) => typeof flags[n] === 'string');
   const file = flags.file;
-  if (typeof list === 'string' && typeof file === 'string') throw new CliError(`give either --${listFlag} or --file, not both`);
+  if (given.length > 1) throw new CliError(`give either --${listFlag} or --tuple (the same thing), not both`);
+  const list = given.length ? flags[given[0]!] : undefined;
+  if (typeof list === 'string' && typeof file === 'string') throw new CliError(`give either --${given[0]} or --file, not both`);
   let values: bigint[];
-  if (typeof list === 'string') values = parseIntegerList(list, `--${listFlag}`);
+  if (typeof list === 'string') values = parseIntegerList(list, `--${given[0]}`);
   else if (typeof file === 'string') values = readTupleFile(file);
   else throw new CliError(`missing --${listFlag} (or --file)`);
   const seen = new Set<bigint>();

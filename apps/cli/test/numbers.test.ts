@@ -31,7 +31,8 @@ describe('parseInteger', () => {
 describe('formatting', () => {
   it('groups digits by thin spaces', () => {
     expect(groupDigits(1234567n)).toBe('1\u2009234\u2009567');
-    expect(groupDigits(1234)).toBe('1234');
+    expect(groupDigits(1234)).toBe('1\u2009234'); // four digits are grouped too (docs/glossary.md)
+    expect(groupDigits(123)).toBe('123');
     expect(groupDigits(-98765)).toBe('-98\u2009765');
   });
   it('writes scientific decimals plainly', () => {

@@ -25,7 +25,7 @@ describe('cribra run', () => {
     const r = await cli([f, '--workers', '1']);
     expect(r.code).toBe(0);
     expect(r.out).toContain('p7 = 210');
-    expect(r.out).toContain('HOLDS: holds in all 14 cases checked (p ∈ primes 3..50)');
+    expect(r.out).toContain('HOLDS: holds for every p ∈ primes 3..50 (14 cases, every case checked)\n'); // 14 odd primes ≤ 50
     expect(r.out).toContain('claims: 1 hold, 0 fail; cell errors: 0');
   });
 
@@ -43,7 +43,25 @@ describe('cribra run', () => {
     const f = file('err.sift', '@@ query\nshow 1\nshow 1/0\n');
     const r = await cli([f, '--workers', '1']);
     expect(r.code).toBe(2);
-    expect(r.out).toContain('error (domain) at line 3, column 7: division by zero');
+    expect(r.out).toContain('Domain error at line 3, column 7: division by zero');
+  });
+
+  it('introduces a builtin\'s error by its kind and reports every syntax error of a cell', async () => {
+    const f = file('slips.sift', '@@ query\nprimebefore(2)\n@@ query\nlet x = 1 +\nshow (2\nclaim x = over p ∈ 1..3\n');
+    const r = await cli([f, '--workers', '1']);
+    expect(r.code).toBe(2);
+    expect(r.out).toContain('Domain error at line 2, column 1: primebefore: there is no prime below 2');
+    const syntax = r.out.split('\n').filter((l) => l.trim().startsWith('Syntax error'));
+    expect(syntax.map((l) => l.trim().replace(/:.*/, ''))).toEqual([
+      'Syntax error at line 4, column 12', 'Syntax error at line 5, column 6', 'Syntax error at line 5, column 8', 'Syntax error at line 6, column 11',
+    ]);
+  });
+
+  it('a verdict whose note claims more says the broader statement is not established', async () => {
+    const f = file('broad.sift', '@@ note\nThe six-gap formula holds for all p ≥ 5.\n@@ claim\nclaim sixes: gapcount(6, p) = closedform(6, p) over p ∈ primes 5..19\n');
+    const r = await cli([f, '--workers', '1']);
+    expect(r.code).toBe(0);
+    expect(r.out).toContain('HOLDS [sixes]: holds for every p ∈ primes 5..19 (6 cases, every case checked); a note states more than this range, and that broader statement is not established\n');
   });
 
   it('exits 2 with one line for a missing file, a bad marker or a bad option', async () => {

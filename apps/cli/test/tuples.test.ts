@@ -26,7 +26,7 @@ describe('cribra admissible', () => {
       k: 3,
       diameter: 4,
       admissible: false,
-      obstruction: { prime: 3, covered: [0, 1, 2] },
+      obstruction: { prime: 3, covered: [0, 1, 2], residues: [0, 1, 2] },
     });
   });
   it('reads a file: one integer per line, blank and # lines ignored, any order, negatives', () => {

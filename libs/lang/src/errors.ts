@@ -18,6 +18,21 @@ export type SiftErrorKind = 'syntax' | 'type' | 'domain' | 'limit' | 'cancelled'
 
 export const SIFT_ERROR_KINDS: readonly SiftErrorKind[] = ['syntax', 'type', 'domain', 'limit', 'cancelled'];
 
+/** How each kind of error is introduced wherever a run's error is shown ("Domain error: …"). */
+export const ERROR_TITLES: Readonly<Record<SiftErrorKind | 'internal', string>> = {
+  syntax: 'Syntax error',
+  type: 'Type error',
+  domain: 'Domain error',
+  limit: 'Limit reached',
+  cancelled: 'Cancelled',
+  internal: 'Internal error',
+};
+
+/** The title of an error kind; an unknown kind is named as it is, never left blank. */
+export function errorTitle(kind: string): string {
+  return (ERROR_TITLES as Record<string, string>)[kind] ?? `Error (${kind})`;
+}
+
 /** The one error type of the language; every failure a user can cause is one of these. */
 export class SiftError extends Error {
   override readonly name = 'SiftError';

@@ -1,7 +1,7 @@
 // `cribra constant`: the Hardy–Littlewood singular series S(H) of an admissible pattern.
 import { singularSeries } from '@cribra/engine';
 import type { Command } from '../command';
-import { toJson } from '../format';
+import { toJson, tupleText } from '../format';
 import { parseSmallInteger } from '../numbers';
 import { parseFlags } from '../options';
 import { tupleFromFlags } from '../tuple-input';
@@ -24,16 +24,18 @@ export function plainDecimal(scientific: string): string {
 
 export const constantCommand: Command = {
   name: 'constant',
-  summary: 'Hardy–Littlewood singular series S(H) of an admissible pattern',
-  usage: 'cribra constant (--pattern 0,2 | --file FILE) [--digits D] [--json]   (D from 1 to 30, default 20)',
+  summary: 'the singular series S(H) of an admissible tuple (Hardy–Littlewood; S({0, 2}) = 2C₂)',
+  usage: 'cribra constant (--tuple 0,2 | --pattern 0,2 | --file FILE) [--digits D] [--json]   (D from 1 to 30, default 20)',
+  aliases: ['singular'],
+  terms: ['tuple', 'singular series'],
   async run(argv, io) {
-    const flags = parseFlags(argv, { pattern: { type: 'string' }, file: { type: 'string' }, digits: { type: 'string' } });
+    const flags = parseFlags(argv, { pattern: { type: 'string' }, tuple: { type: 'string' }, file: { type: 'string' }, digits: { type: 'string' } });
     const values = tupleFromFlags(flags, 'pattern');
     const digits = typeof flags.digits === 'string' ? parseSmallInteger(flags.digits, '--digits', 1, 30) : 20;
     const s = singularSeries(values, { digits });
     const value = plainDecimal(s.decimal);
     if (flags.json) io.out(toJson({ pattern: s.pattern, k: s.k, value, digits: s.digits }));
-    else io.out(`S({${s.pattern.join(', ')}}) = ${value}   (${s.digits} significant digits)\n`);
+    else io.out(`singular series S(${tupleText(s.pattern)}) = ${value}   (${s.digits} significant digits)\n`);
     return 0;
   },
 };

@@ -1,18 +1,20 @@
-// `cribra count`: occurrences of a prime constellation pattern among the real primes of a range.
+// `cribra count` (also `cribra constellations`): constellations of a tuple among the primes of a range.
 import { sievePrimeBlockParallel } from '@cribra/engine/node';
 import type { Command } from '../command';
-import { groupDigits, toJson } from '../format';
+import { groupDigits, rangeText, toJson, tupleText } from '../format';
 import { parseInteger } from '../numbers';
 import { parseFlags, requireFlag, WORKERS_FLAG, workersFlag } from '../options';
 import { tupleFromFlags } from '../tuple-input';
 
 export const countCommand: Command = {
   name: 'count',
-  summary: 'count n in [from, to] with n + h prime for every h of the pattern',
-  usage: 'cribra count (--pattern 0,2,6 | --file FILE) --to N [--from A] [--workers N] [--json]',
+  summary: 'constellations: count n in A..N with n + h prime for every h of the tuple',
+  usage: 'cribra count (--tuple 0,2,6 | --pattern 0,2,6 | --file FILE) --to N [--from A] [--workers N] [--json]   (A..N includes both ends)',
+  aliases: ['constellations'],
+  terms: ['tuple', 'constellation', 'range'],
   async run(argv, io) {
     const flags = parseFlags(argv, {
-      pattern: { type: 'string' }, file: { type: 'string' }, from: { type: 'string' }, to: { type: 'string' }, ...WORKERS_FLAG,
+      pattern: { type: 'string' }, tuple: { type: 'string' }, file: { type: 'string' }, from: { type: 'string' }, to: { type: 'string' }, ...WORKERS_FLAG,
     });
     const pattern = tupleFromFlags(flags, 'pattern');
     const to = parseInteger(requireFlag(flags, 'to'), '--to');
@@ -22,7 +24,7 @@ export const countCommand: Command = {
     const result = { pattern: stats.pattern, from, to, count: BigInt(stats.count), first: stats.first, last: stats.last };
     if (flags.json) io.out(toJson(result));
     else {
-      io.out(`pattern {${stats.pattern.join(', ')}} in [${groupDigits(from)}, ${groupDigits(to)}]: ${groupDigits(stats.count)} occurrences\n`);
+      io.out(`tuple ${tupleText(stats.pattern)} in ${rangeText(from, to)}: ${groupDigits(stats.count)} constellation${stats.count === 1 ? '' : 's'}\n`);
       if (stats.first !== null) io.out(`first at n = ${groupDigits(stats.first)}, last at n = ${groupDigits(stats.last!)}\n`);
       io.out('(n counted when n ≥ from and n + max H ≤ to)\n');
     }

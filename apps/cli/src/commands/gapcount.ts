@@ -9,6 +9,7 @@ export const gapcountCommand: Command = {
   name: 'gapcount',
   summary: 'number of gaps g between consecutive members of wheel level p (one period), closed form',
   usage: 'cribra gapcount --gap G --level P [--json]   (G even, 2 ≤ G ≤ 120; P prime ≤ 10^6)',
+  terms: ['wheel level'],
   async run(argv, io) {
     const flags = parseFlags(argv, { gap: { type: 'string' }, level: { type: 'string' } });
     const g = parseSmallInteger(requireFlag(flags, 'gap'), '--gap', 1, 120);

@@ -2,8 +2,8 @@
 import { readFileSync } from 'node:fs';
 import { availableParallelism } from 'node:os';
 import {
-  MemoryDataProvider, parseNotebookFile, type NotebookFileCell, type RunResult, type SiftOutput, type ValueJson,
-  valueJsonText,
+  errorTitle, MemoryDataProvider, parseNotebookFile, type NotebookFileCell, type RunResult, type SiftOutput, type ValueJson,
+  type VerdictContext, valueJsonText, verdictSentence,
 } from '@cribra/lang';
 import { SiftPool } from '@cribra/lang/node';
 
@@ -80,6 +80,7 @@ export async function runCommand(argv: string[], out: (s: string) => void = (s) 
     return exitCode;
   }
   if (parsed.notebook.title) out(`${parsed.notebook.title}\n`);
+  const notes = parsed.notebook.cells.filter((c) => c.kind === 'note').map((c) => c.source);
   for (const { cell, index, line } of cells) {
     out(`\n── cell ${index} · ${cell.kind}${cell.title ? ` · ${cell.title}` : ''} (line ${line})\n`);
     const r = results.get(index);
@@ -87,10 +88,12 @@ export async function runCommand(argv: string[], out: (s: string) => void = (s) 
       out(indent(cell.source.split('\n').slice(0, 3).join('\n') + (cell.source.split('\n').length > 3 ? '\n…' : '')));
       continue;
     }
-    for (const o of r.outputs) out(indent(renderOutput(o)));
-    if (r.error) {
-      const where = 'line' in r.error && r.error.line ? ` at line ${line + r.error.line}, column ${r.error.column}` : '';
-      out(indent(`error (${r.error.kind})${where}: ${r.error.message}`));
+    for (const o of r.outputs) out(indent(renderOutput(o, { title: cell.title, notes })));
+    // Every syntax error of the cell (the editor marks the same), else the error that stopped it.
+    const shown = r.diagnostics.length ? r.diagnostics : r.error ? [r.error] : [];
+    for (const e of shown) {
+      const where = 'line' in e && e.line ? ` at line ${line + e.line}, column ${e.column}` : '';
+      out(indent(`${errorTitle(e.kind)}${where}: ${e.message}`));
     }
     out(`   digest ${r.digest.slice(0, 16)} · ${r.millis} ms\n`);
   }
@@ -152,8 +155,8 @@ function indent(s: string): string {
 
 const text = (v: ValueJson): string => valueJsonText(v);
 
-/** Plain-text rendering of one output for the terminal. */
-export function renderOutput(o: SiftOutput): string {
+/** Plain-text rendering of one output for the terminal (a verdict's sentence looks at its cell's title and the notes). */
+export function renderOutput(o: SiftOutput, context: VerdictContext = {}): string {
   switch (o.kind) {
     case 'value':
       return `${o.label ? `${o.label} = ` : ''}${o.text}`;
@@ -168,7 +171,7 @@ export function renderOutput(o: SiftOutput): string {
     case 'chart':
       return `chart (${o.chart}${o.title ? `, "${o.title}"` : ''}): ${o.x.label}${o.x.log ? ' (log)' : ''} → ${o.series.map((s) => `${s.name} (${s.points.length} points)`).join(', ')}${o.y.log ? ', log y' : ''}`;
     case 'verdict':
-      return `${o.holds ? 'HOLDS' : 'FAILS'}${o.label ? ` [${o.label}]` : ''}: ${o.summary}`;
+      return `${o.holds ? 'HOLDS' : 'FAILS'}${o.label ? ` [${o.label}]` : ''}: ${verdictSentence(o, context)}`;
   }
 }
 

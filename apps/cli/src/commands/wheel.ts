@@ -14,6 +14,7 @@ export const wheelCommand: Command = {
   name: 'wheel',
   summary: 'wheel level p: modulus p#, members φ(p#), largest gap, gap histogram',
   usage: `cribra wheel --level P [--workers N] [--json]   (P prime, 2 ≤ P ≤ ${MAX_LEVEL})`,
+  terms: ['wheel level', 'largest gap'],
   async run(argv, io) {
     const flags = parseFlags(argv, { level: { type: 'string' }, ...WORKERS_FLAG });
     const p = parseSmallInteger(requireFlag(flags, 'level'), '--level', 2, MAX_LEVEL);
@@ -32,7 +33,7 @@ export const wheelCommand: Command = {
     if (flags.json) io.out(toJson(result));
     else {
       io.out(`wheel level ${p}: modulus ${p}# = ${groupDigits(result.modulus)}, members φ(${p}#) = ${groupDigits(result.members)}\n`);
-      io.out(`largest gap ${result.maxGap}\n`);
+      io.out(`largest gap ${result.maxGap} (the Jacobsthal value j(${p}#))\n`);
       const width = Math.max(...gaps.map((g) => String(g).length));
       for (const g of gaps) io.out(`  gap ${String(g).padStart(width)}  ${groupDigits(histogram.get(g)!)}\n`);
     }

@@ -1,16 +1,7 @@
 import type { RunView } from '@cribra/contracts';
+import { errorTitle } from '@cribra/lang';
 import { Alert, Stack } from '@mui/material';
 import { OutputView } from '../../../components/outputs/output-view';
-
-const ERROR_TITLE: Record<string, string> = {
-  syntax: 'Syntax error',
-  type: 'Type error',
-  runtime: 'Error while running',
-  limit: 'Limit reached',
-  input: 'Bad input',
-  cancelled: 'Cancelled',
-  internal: 'Internal error',
-};
 
 /** The outputs of a finished run, or its error with the source position when there is one. */
 export function RunOutputs({ run }: { run: RunView }) {
@@ -18,7 +9,7 @@ export function RunOutputs({ run }: { run: RunView }) {
     const e = run.error;
     return (
       <Alert severity={run.status === 'cancelled' ? 'info' : 'error'} sx={{ my: 1 }}>
-        <strong>{ERROR_TITLE[e?.kind ?? (run.status === 'cancelled' ? 'cancelled' : 'internal')]}</strong>
+        <strong>{errorTitle(e?.kind ?? (run.status === 'cancelled' ? 'cancelled' : 'internal'))}</strong>
         {e?.line ? ` (line ${e.line}${e.column ? `, column ${e.column}` : ''})` : ''}: {e?.message ?? 'The run stopped.'}
       </Alert>
     );
