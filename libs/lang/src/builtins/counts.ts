@@ -34,7 +34,7 @@ const counts: Builtin[] = [
   {
     name: 'hits', area: 'counts', minArgs: 2, maxArgs: 2,
     signature: 'hits(H, p) → integer',
-    doc: 'Occurrences of the tuple H in one period of level p: the x in [1, p#] with every x + h coprime to p#, = ∏_{q ≤ p}(q − ν_q(H)).',
+    doc: 'The hits of the tuple H in one period of level p: the x in [1, p#] with every x + h coprime to p#, = ∏_{q ≤ p}(q − ν_q(H)).',
     example: { source: 'hits({0, 2}, 7)', result: '15' },
     call: (a, c) => occurrenceCount(argTuple(a, 0, c, 'hits'), levelArg(a, 1, c, 'hits')),
   },

@@ -43,7 +43,7 @@ const primes: Builtin[] = [
   {
     name: 'ledger', area: 'primes', minArgs: 1, maxArgs: 1,
     signature: 'ledger(a..b) → record (from, to, primes, twins, maxgap, after)',
-    doc: 'Real-prime statistics of a..b: π(b) − π(a−1), twin pairs (p, p+2) inside the range, the largest gap and the prime before it. Stored ledger ranges are read.',
+    doc: 'Prime statistics of a..b: π(b) − π(a−1), twin pairs (p, p+2) inside the range, the largest gap and the prime before it. Stored ledger ranges are read.',
     example: { source: 'ledger(1..100)', result: '(from: 1, to: 100, primes: 25, twins: 8, maxgap: 8, after: 89)' },
     call: (a, c) => {
       const r = argRange(a, 0, c, 'ledger');
@@ -77,7 +77,7 @@ const primes: Builtin[] = [
   {
     name: 'constellations', area: 'primes', minArgs: 2, maxArgs: 2,
     signature: 'constellations(H, a..b) → record (pattern, count, first, last)',
-    doc: 'Occurrences of the admissible pattern H among real primes: n with n + h prime for all h ∈ H, a ≤ n and n + max H ≤ b.',
+    doc: 'The constellations of the admissible tuple H among the primes: n with n + h prime for all h ∈ H, a ≤ n and n + max H ≤ b.',
     example: { source: 'constellations({0, 2, 6}, 1..1000)', result: '(pattern: {0, 2, 6}, count: 15, first: 5, last: 881)' },
     call: (a, c) => {
       const h = argTuple(a, 0, c, 'constellations');

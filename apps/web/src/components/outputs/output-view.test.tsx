@@ -54,14 +54,16 @@ describe('OutputView', () => {
   });
 
   it('says that the broader statement is not established when the claim name states more', async () => {
-    renderWithApp(<OutputView output={{ ...holds, label: 'admissible for every level' }} />);
+    const broad: VerdictOutput = { ...holds, label: 'admissible for every level' };
+    renderWithApp(<OutputView output={broad} />);
     expect((await screen.findByTestId('verdict-range')).textContent).toBe(
       "holds for every p ∈ primes 3..97 (24 cases, every case checked); the claim's name states more than this range, and that broader statement is not established",
     );
   });
 
   it('a claim without a range says it was checked once, with no empty "from … to"', async () => {
-    renderWithApp(<OutputView output={{ ...holds, over: null, checked: 1, first: [], last: [] }} />);
+    const once: VerdictOutput = { ...holds, over: null, checked: 1, first: [], last: [] };
+    renderWithApp(<OutputView output={once} />);
     expect((await screen.findByTestId('verdict-range')).textContent).toBe('holds (a statement without a range, checked once)');
   });
 
