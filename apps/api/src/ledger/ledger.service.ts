@@ -45,7 +45,7 @@ function badRange(err: ComputationRequestError): BadRequestException {
   return new BadRequestException({ message: err.message, details: [{ field: err.field, messages: [err.message] }] });
 }
 
-/** The prime ledger: fixed blocks of real-prime statistics, combined on read. */
+/** The prime ledger: fixed blocks of prime statistics, combined on read. */
 @Injectable()
 export class LedgerService {
   constructor(

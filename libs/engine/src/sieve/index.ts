@@ -1,4 +1,4 @@
-// Real primes: segmented sieve over any range up to 10^15, combinable block summaries.
+// Primes: segmented sieve over any range up to 10^15, combinable block summaries.
 export * from './prime-block';
 export * from './prime-block-json';
 export * from './combine';

@@ -1,4 +1,4 @@
-// The combinable summary of real primes over one range [from, to] (a "prime ledger" block).
+// The combinable summary of the primes over one range [from, to] (a "prime ledger" block).
 
 /** A record gap: larger than every earlier gap between consecutive primes of the block. */
 export interface GapRecord {

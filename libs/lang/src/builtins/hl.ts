@@ -19,7 +19,7 @@ const hl: Builtin[] = [
   },
   {
     name: 'Li', area: 'hardy-littlewood', minArgs: 2, maxArgs: 2,
-    signature: 'Li(k, x) → real', doc: 'Li_k(x) = ∫_2^x dt / ln^k t (x ≥ 2).',
+    signature: 'Li(k, x) → real', doc: 'Li_k(x) = ∫_2^x dt / ln^k t (x ≥ 2), the integral of the Hardy–Littlewood prediction (not the polylogarithm).',
     example: { source: 'Li(1, 10^6)', result: '78626.50399568208' },
     call: (a, c) => {
       const k = argSmall(a, 0, c, 'Li', 1, 10_000);

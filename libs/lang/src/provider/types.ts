@@ -14,7 +14,7 @@ export interface StoredLevel {
   patternTallies: Array<{ length: number; entries: Array<{ pattern: number[]; count: bigint }> }>;
 }
 
-/** Statistics of real primes in [from, to) combined from stored ledger blocks. */
+/** Statistics of the primes in [from, to) combined from stored ledger blocks. */
 export interface StoredLedgerRange {
   from: bigint;
   /** Exclusive. */
