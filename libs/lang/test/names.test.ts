@@ -1,6 +1,6 @@
 // Sift's own names for the prime builtins, the old spellings kept hidden, and "did you mean".
 import { describe, expect, it } from 'vitest';
-import { allBuiltins, complete, diagnose, evaluate } from '../src';
+import { allBuiltins, complete, diagnose, evaluate, hover } from '../src';
 import { failure, value } from './helpers';
 
 const RENAMED: Array<[string, string, string]> = [
@@ -58,6 +58,7 @@ describe('renamed prime builtins', () => {
     expect(complete('show prim', 9).map((c) => c.label)).toEqual(expect.arrayContaining(['prime', 'primeafter', 'primebefore', 'primecount']));
     expect(complete('show isp', 8).map((c) => c.label)).toEqual([]);
     expect(complete('show next', 9).map((c) => c.label)).toEqual([]);
+    expect(hover('isprime(7)', 1)!.contents[0]).toBe('isprime is the old spelling of prime; it still runs as before');
   });
 
   it('the new names do not break a cell that already used them for its own values', () => {

@@ -13,7 +13,7 @@ async function main(): Promise<void> {
   try {
     if (command === 'up') {
       const done = await ds.runMigrations({ transaction: 'each' });
-      console.log(done.length ? `Applied ${done.length} migration(s): ${done.map((m) => m.name).join(', ')}` : 'Database schema is up to date.');
+      console.log(done.length ? `Applied ${done.length} migration${done.length === 1 ? '' : 's'}: ${done.map((m) => m.name).join(', ')}` : 'Database schema is up to date.');
     } else if (command === 'down') {
       await ds.undoLastMigration({ transaction: 'each' });
       console.log('Reverted the last migration.');

@@ -23,7 +23,7 @@ const STEPS: Step[] = [
     run: async (ds) => {
       const { users } = readSeedJson<{ users: DemoUser[] }>('users.json');
       const { created } = await seedDemoUsers(ds, users);
-      return created.length ? `created ${created.length} account(s)` : 'all accounts present';
+      return created.length ? `created ${created.length} account${created.length === 1 ? '' : 's'}` : 'all accounts present';
     },
   },
   {

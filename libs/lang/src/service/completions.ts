@@ -80,7 +80,8 @@ export function hover(source: string, offset: number): HoverInfo | null {
   const span = { offset: tok.offset, length: tok.length };
   if (tok.kind === 'builtin') {
     const b = builtin(text)!;
-    return { contents: [b.signature, b.doc, `Example: ${b.example.source}  ⟶  ${b.example.result}`], ...span };
+    const old = b.aliasOf ? [`${text} is the old spelling of ${b.aliasOf}; it still runs as before`] : [];
+    return { contents: [...old, b.signature, b.doc, `Example: ${b.example.source}  ⟶  ${b.example.result}`], ...span };
   }
   if (tok.kind === 'keyword' || text === '#') {
     const key = keywordKey(text);
