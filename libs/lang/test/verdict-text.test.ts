@@ -53,6 +53,8 @@ describe('verdict sentences say exactly what was shown', () => {
     expect(statesMoreThanChecked('true at every level', ['p'])).toBe(true);
     expect(statesMoreThanChecked('∀p the counts agree', ['p'])).toBe(true);
     expect(statesMoreThanChecked('there are infinitely many such primes', ['n'])).toBe(true);
+    expect(statesMoreThanChecked('We checked all levels from 5 to 19. It should hold for every level.', ['p'], ['19'])).toBe(true);
+    expect(statesMoreThanChecked('We checked all levels from 5 to 19.', ['p'], ['19'])).toBe(false);
     for (const name of ['narrow-ten-tuples', 'gap-patterns-across-levels', 'ledger-twins-draft']) {
       const nb = parseNotebookFile(readFileSync(new URL(`../../../seeds-demo/notebooks/${name}.sift`, import.meta.url), 'utf8')).notebook;
       const notes = nb.cells.filter((c) => c.kind === 'note').map((c) => c.source);

@@ -23,11 +23,15 @@ const count = (n: number, one: string, many: string) => `${groupInteger(n)} ${n 
  * level", "always", "infinitely many", "∀ p" … (a quantifier over the bound names or over levels,
  * primes, tuples). "Every number below" or "settled for 10-tuples" do not count.
  */
-export function statesMoreThanChecked(text: string, names: readonly string[]): boolean {
+export function statesMoreThanChecked(text: string, names: readonly string[], rangeEnds: readonly string[] = []): boolean {
   const vars = names.map((n) => n.replace(/[.*+?^${}()|[\]\\]/g, '\\$&'));
   const things = ['levels?', 'primes?', 'wheel levels?', 'tuples?', 'k-tuples?', 'moduli', 'modulus', 'n', 'k', 'x', ...vars];
   const quantified = new RegExp(`(?:\\b(?:for all|for every|for each|for any|every|all|any)|∀)\\s*(?:admissible\\s+|odd\\s+|prime\\s+)?(?:${things.join('|')})(?![\\w'])`, 'iu');
-  return quantified.test(text) || /\b(?:always|infinitely many|in general|for ever)\b/i.test(text);
+  // Sentence by sentence: one that names the checked range's end ("all levels from 5 to 23") stays inside it.
+  return text.split(/(?<=[.;!?])\s+/).some((sentence) => {
+    if (rangeEnds.some((e) => new RegExp(`(?<![\\d])${e}(?![\\d])`).test(sentence))) return false;
+    return quantified.test(sentence) || /\b(?:always|infinitely many|in general|for ever)\b/i.test(sentence);
+  });
 }
 
 /**
@@ -45,9 +49,11 @@ export function verdictSentence(v: VerdictOutput, context: VerdictContext = {}):
   const left = v.skipped ? `; ${groupInteger(v.skipped)} left out by the conditions` : '';
   const cases = `${v.checked === 1 ? '1 case, checked' : `${groupInteger(v.checked)} cases, every case checked`}${left}`;
   const names = (v.first ?? []).map(([n]) => n);
+  // The upper end only: a broader statement names its lower bound too ("for all p ≥ 5").
+  const ends = (v.last ?? []).flatMap(([, x]) => (x.t === 'int' ? [x.v] : []));
   const broader: string[] = [];
-  if ((v.label && statesMoreThanChecked(v.label, names)) || (context.title && statesMoreThanChecked(context.title, names))) broader.push("the claim's name");
-  if ((context.notes ?? []).some((t) => statesMoreThanChecked(t, names))) broader.push('a note');
+  if ((v.label && statesMoreThanChecked(v.label, names, ends)) || (context.title && statesMoreThanChecked(context.title, names, ends))) broader.push("the claim's name");
+  if ((context.notes ?? []).some((t) => statesMoreThanChecked(t, names, ends))) broader.push('a note');
   const beyond = broader.length
     ? `; ${broader.join(' and ')} ${broader.length > 1 ? 'state' : 'states'} more than this range, and that broader statement is not established`
     : '';

@@ -4,6 +4,7 @@ import type { ChartOutput, TableOutput, ValueOutput, VerdictOutput } from '../..
 import { renderWithApp } from '../../test-utils/render';
 import { chartFigure } from './chart-figure';
 import { OutputView } from './output-view';
+import { VerdictContextValue } from './verdict-context';
 
 // 2^64 = 18446744073709551616 (exact; OEIS A000079 lists powers of 2).
 const big: ValueOutput = { kind: 'value', label: 'two to the 64', value: { t: 'int', v: '18446744073709551616' }, text: '18446744073709551616' };
@@ -59,6 +60,19 @@ describe('OutputView', () => {
     expect((await screen.findByTestId('verdict-range')).textContent).toBe(
       "holds for every p ∈ primes 3..97 (24 cases, every case checked); the claim's name states more than this range, and that broader statement is not established",
     );
+  });
+
+  it("reads the notebook's notes: a note that states more than the range is answered once", async () => {
+    renderWithApp(
+      <VerdictContextValue.Provider value={{ notes: ['We expect this for every level p.'] }}>
+        <OutputView output={holds} />
+      </VerdictContextValue.Provider>,
+    );
+    const card = await screen.findByRole('region', { name: 'Claim holds' });
+    expect(screen.getByTestId('verdict-range').textContent).toBe(
+      'holds for every p ∈ primes 3..97 (24 cases, every case checked); a note states more than this range, and that broader statement is not established',
+    );
+    expect(card.textContent!.split('not established').length - 1).toBe(1);
   });
 
   it('a claim without a range says it was checked once, with no empty "from … to"', async () => {

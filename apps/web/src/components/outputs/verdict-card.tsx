@@ -3,10 +3,13 @@ import { monoFont, palette } from '../../lib/design-tokens';
 import type { VerdictOutput } from '../../lib/sift-output';
 import { bindingText } from '../../lib/value-text';
 import { verdictSentence } from '@cribra/lang';
+import { useContext } from 'react';
+import { VerdictContextValue } from './verdict-context';
 import { counterexampleText } from './verdict-text';
 
 /** A claim's verdict: holds for every case of its range (all checked) or fails with its counterexample. */
 export function VerdictCard({ output }: { output: VerdictOutput }) {
+  const context = useContext(VerdictContextValue);
   const colour = output.holds ? palette.holds : palette.fails;
   return (
     <Paper
@@ -24,7 +27,7 @@ export function VerdictCard({ output }: { output: VerdictOutput }) {
       </Box>
       <Typography sx={{ fontFamily: monoFont, mb: 1, wordBreak: 'break-word' }}>{output.statement}</Typography>
       {/* One sentence says what was shown, the range once (the recorded summary stays in the digest). */}
-      <Typography data-testid="verdict-range">{verdictSentence(output)}</Typography>
+      <Typography data-testid="verdict-range">{verdictSentence(output, context)}</Typography>
       {!output.holds && output.counterexample && (
         <Box sx={{ mt: 1.5, p: 1.5, bgcolor: 'rgba(163, 50, 31, 0.06)', borderRadius: 1 }}>
           <Typography sx={{ fontWeight: 600 }}>Counterexample</Typography>

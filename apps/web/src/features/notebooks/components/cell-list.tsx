@@ -1,6 +1,7 @@
 import type { CellKind, CellView, NotebookView } from '@cribra/contracts';
 import { Alert, Stack } from '@mui/material';
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
+import { VerdictContextValue } from '../../../components/outputs/verdict-context';
 import { EmptyState } from '../../../components/empty-state';
 import { errorMessage } from '../../../lib/api-error';
 import { useCreateCell } from '../api/create-cell';
@@ -24,6 +25,8 @@ export function CellList({ notebook, canEdit, canRun }: Props) {
   const reorder = useReorderCells(notebook.id);
   const [deleting, setDeleting] = useState<CellView | null>(null);
   const cells = notebook.cells;
+  // Verdicts read the notes: a note that states more than a claim's range is answered in its sentence.
+  const verdictContext = useMemo(() => ({ notes: cells.filter((c) => c.kind === 'note').map((c) => c.source) }), [cells]);
 
   const add = (kind: CellKind, position?: number) => create.mutate({ kind, source: STARTER[kind], position });
   const move = (cell: CellView, by: -1 | 1) => {
@@ -37,38 +40,40 @@ export function CellList({ notebook, canEdit, canRun }: Props) {
   const error = create.error ?? remove.error ?? reorder.error;
 
   return (
-    <Stack spacing={1.5}>
-      {error && <Alert severity="error">{errorMessage(error)}</Alert>}
-      {cells.length === 0 && (
-        <EmptyState title="This notebook has no cells yet">
-          {canEdit ? 'Add a query to compute, a claim to test over a range, or a note to explain.' : 'Nothing has been written here yet.'}
-        </EmptyState>
-      )}
-      {cells.map((cell, i) => (
-        <CellCard
-          key={cell.id}
-          cell={cell}
-          index={i}
-          count={cells.length}
-          canEdit={canEdit}
-          canRun={canRun}
-          onMove={move}
-          onDelete={setDeleting}
-          onAddBelow={(c) => canEdit && add('query', c.position + 1)}
+    <VerdictContextValue.Provider value={verdictContext}>
+      <Stack spacing={1.5}>
+        {error && <Alert severity="error">{errorMessage(error)}</Alert>}
+        {cells.length === 0 && (
+          <EmptyState title="This notebook has no cells yet">
+            {canEdit ? 'Add a query to compute, a claim to test over a range, or a note to explain.' : 'Nothing has been written here yet.'}
+          </EmptyState>
+        )}
+        {cells.map((cell, i) => (
+          <CellCard
+            key={cell.id}
+            cell={cell}
+            index={i}
+            count={cells.length}
+            canEdit={canEdit}
+            canRun={canRun}
+            onMove={move}
+            onDelete={setDeleting}
+            onAddBelow={(c) => canEdit && add('query', c.position + 1)}
+          />
+        ))}
+        {canEdit && <AddCellBar onAdd={(k) => add(k)} disabled={create.isPending} />}
+        <ConfirmDialog
+          open={!!deleting}
+          title="Delete this cell?"
+          text="The cell and its run history go. This cannot be undone."
+          confirmLabel="Delete cell"
+          onClose={() => setDeleting(null)}
+          onConfirm={() => {
+            if (deleting) remove.mutate({ id: deleting.id, revision: deleting.revision });
+            setDeleting(null);
+          }}
         />
-      ))}
-      {canEdit && <AddCellBar onAdd={(k) => add(k)} disabled={create.isPending} />}
-      <ConfirmDialog
-        open={!!deleting}
-        title="Delete this cell?"
-        text="The cell and its run history go. This cannot be undone."
-        confirmLabel="Delete cell"
-        onClose={() => setDeleting(null)}
-        onConfirm={() => {
-          if (deleting) remove.mutate({ id: deleting.id, revision: deleting.revision });
-          setDeleting(null);
-        }}
-      />
-    </Stack>
+      </Stack>
+    </VerdictContextValue.Provider>
   );
 }
