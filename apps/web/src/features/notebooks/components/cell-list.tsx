@@ -39,41 +39,40 @@ export function CellList({ notebook, canEdit, canRun }: Props) {
   };
   const error = create.error ?? remove.error ?? reorder.error;
 
-  return (
-    <VerdictContextValue.Provider value={verdictContext}>
-      <Stack spacing={1.5}>
-        {error && <Alert severity="error">{errorMessage(error)}</Alert>}
-        {cells.length === 0 && (
-          <EmptyState title="This notebook has no cells yet">
-            {canEdit ? 'Add a query to compute, a claim to test over a range, or a note to explain.' : 'Nothing has been written here yet.'}
-          </EmptyState>
-        )}
-        {cells.map((cell, i) => (
-          <CellCard
-            key={cell.id}
-            cell={cell}
-            index={i}
-            count={cells.length}
-            canEdit={canEdit}
-            canRun={canRun}
-            onMove={move}
-            onDelete={setDeleting}
-            onAddBelow={(c) => canEdit && add('query', c.position + 1)}
-          />
-        ))}
-        {canEdit && <AddCellBar onAdd={(k) => add(k)} disabled={create.isPending} />}
-        <ConfirmDialog
-          open={!!deleting}
-          title="Delete this cell?"
-          text="The cell and its run history go. This cannot be undone."
-          confirmLabel="Delete cell"
-          onClose={() => setDeleting(null)}
-          onConfirm={() => {
-            if (deleting) remove.mutate({ id: deleting.id, revision: deleting.revision });
-            setDeleting(null);
-          }}
+  const list = (
+    <Stack spacing={1.5}>
+      {error && <Alert severity="error">{errorMessage(error)}</Alert>}
+      {cells.length === 0 && (
+        <EmptyState title="This notebook has no cells yet">
+          {canEdit ? 'Add a query to compute, a claim to test over a range, or a note to explain.' : 'Nothing has been written here yet.'}
+        </EmptyState>
+      )}
+      {cells.map((cell, i) => (
+        <CellCard
+          key={cell.id}
+          cell={cell}
+          index={i}
+          count={cells.length}
+          canEdit={canEdit}
+          canRun={canRun}
+          onMove={move}
+          onDelete={setDeleting}
+          onAddBelow={(c) => canEdit && add('query', c.position + 1)}
         />
-      </Stack>
-    </VerdictContextValue.Provider>
+      ))}
+      {canEdit && <AddCellBar onAdd={(k) => add(k)} disabled={create.isPending} />}
+      <ConfirmDialog
+        open={!!deleting}
+        title="Delete this cell?"
+        text="The cell and its run history go. This cannot be undone."
+        confirmLabel="Delete cell"
+        onClose={() => setDeleting(null)}
+        onConfirm={() => {
+          if (deleting) remove.mutate({ id: deleting.id, revision: deleting.revision });
+          setDeleting(null);
+        }}
+      />
+    </Stack>
   );
+  return <VerdictContextValue.Provider value={verdictContext}>{list}</VerdictContextValue.Provider>;
 }
