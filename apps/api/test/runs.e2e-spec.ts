@@ -51,7 +51,7 @@ describe('runs', () => {
     const bad = await addCell(owner, notebookId, 'let x = 1 +\nshow (2\nprimorial(5)');
     const res = await owner.client.call('post', `/api/cells/${bad.id}/runs`);
     expect(res.status).toBe(400);
-    expect(res.body.message).toMatch(/^The cell has 2 syntax errors; nothing was queued \(first: line 1, column 12: /);
+    expect(res.body.message).toMatch(/^The cell has 2 syntax errors; nothing was queued\. line 1, column 12: the statement ends too early.*; line 3, column 1: unexpected 'primorial': expected '\)'$/);
     expect(res.body.details).toEqual([{ field: 'source', messages: [
       expect.stringMatching(/^line 1, column 12: the statement ends too early/),
       "line 3, column 1: unexpected 'primorial': expected ')'",
@@ -64,6 +64,7 @@ describe('runs', () => {
     const all = await owner.client.call('post', `/api/notebooks/${nb.id}/runs`);
     expect(all.status).toBe(400);
     expect(all.body.details).toEqual([{ field: 'cell 2', messages: [expect.stringMatching(/^line 1, column 15: /)] }]);
+    expect(all.body.message).toMatch(/^cell 2 has 1 syntax error; nothing was queued\. cell 2, line 1, column 15: /);
     expect((await owner.client.call('get', `/api/cells/${good.id}/runs`)).body.total).toBe(0);
   });
 

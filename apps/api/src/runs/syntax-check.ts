@@ -9,6 +9,9 @@ export function syntaxErrorsOf(source: string): string[] {
     .map((e) => (e.span ? `line ${e.span.line}, column ${e.span.column}: ${e.message}` : e.message));
 }
 
+/** Errors written out in the message itself (all of them are in `details`). */
+const SHOWN = 5;
+
 /**
  * Refuses (400) a run of a cell that does not parse, listing every syntax error: such a cell is
  * never sent to a runner. `where` names the cell in a notebook-wide run.
@@ -23,8 +26,11 @@ export function assertRunnable(sources: Array<{ source: string; where?: string }
   const count = details.reduce((n, d) => n + d.messages.length, 0);
   const first = details[0]!;
   const cells = details.length === 1 ? (first.field === 'source' ? 'The cell has' : `${first.field} has`) : `${details.length} cells have`;
+  // The message lists them too (the web shows it as it is): the first few, then how many more.
+  const all = details.flatMap((d) => d.messages.map((m) => (d.field === 'source' ? m : `${d.field}, ${m}`)));
+  const shown = all.slice(0, SHOWN).join('; ') + (all.length > SHOWN ? `; and ${all.length - SHOWN} more` : '');
   throw new BadRequestException({
-    message: `${cells} ${count} syntax error${count === 1 ? '' : 's'}; nothing was queued (first: ${first.messages[0]})`,
+    message: `${cells} ${count} syntax error${count === 1 ? '' : 's'}; nothing was queued. ${shown}`,
     details,
   });
 }
