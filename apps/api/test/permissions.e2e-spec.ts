@@ -79,7 +79,13 @@ describe('on a locked notebook', () => {
 
   // Every content-changing action is refused (409 for anyone with access, 403 for others);
   // reading, the lock record, checks and duplication stay as the table says.
-  const LOCKED_OK: Partial<Record<NotebookAction, number[]>> = { 'lock.read': [200], 'lock.check': [202] };
+  // Publishing: the first allowed person publishes (201), the next is told it already is (409).
+  const LOCKED_OK: Partial<Record<NotebookAction, number[]>> = {
+    'lock.read': [200],
+    'lock.check': [202],
+    'record.publish': [201, 409],
+    'record.read': [200, 404],
+  };
 
   describe.each(ACTIONS)('%s', (action) => {
     it.each(WHO)('as %s', async (who) => {

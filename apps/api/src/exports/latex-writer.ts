@@ -30,7 +30,7 @@ const PGF_MARK = '%%CRIBRA-PGFPLOTS%%';
  * defaults, every character outside ASCII either mapped or written as its code point.
  */
 export const latexWriter: DocumentWriter = {
-  begin: (nb: NotebookView) =>
+  begin: (nb: NotebookView, stamp?: string) =>
     [
       '\\documentclass[11pt]{article}',
       '\\usepackage[utf8]{inputenc}',
@@ -54,7 +54,7 @@ export const latexWriter: DocumentWriter = {
       '\\begin{document}',
       '\\maketitle',
       nb.summary ? `\\begin{abstract}\n${latexText(nb.summary)}\n\\end{abstract}` : '',
-      `\\noindent\\textit{Status: ${latexText(nb.status.replace('_', ' '))}; revision ${nb.revision}; exported ${new Date().toISOString()}.}`,
+      `\\noindent\\textit{Status: ${latexText(nb.status.replace('_', ' '))}; revision ${nb.revision}; ${stamp ?? `exported ${new Date().toISOString()}`}.}`,
     ]
       .filter(Boolean)
       .join('\n'),

@@ -10,11 +10,11 @@ const escCell = (s: string): string => s.replace(/\|/g, '\\|').replace(/\r?\n/g,
 
 /** Markdown (CommonMark + pipe tables); note cells are Markdown already and pass through. */
 export const markdownWriter: DocumentWriter = {
-  begin: (nb: NotebookView) =>
+  begin: (nb: NotebookView, stamp?: string) =>
     [
       `# ${nb.title}`,
       nb.summary,
-      `*Status: ${nb.status.replace('_', ' ')} · revision ${nb.revision} · owner ${nb.owner.displayName}${nb.tags.length ? ` · tags: ${nb.tags.join(', ')}` : ''} · exported ${new Date().toISOString()}*`,
+      `*Status: ${nb.status.replace('_', ' ')} · revision ${nb.revision} · owner ${nb.owner.displayName}${nb.tags.length ? ` · tags: ${nb.tags.join(', ')}` : ''} · ${stamp ?? `exported ${new Date().toISOString()}`}*`,
     ]
       .filter(Boolean)
       .join('\n\n'),

@@ -20,7 +20,8 @@ export interface DocumentWriter {
   chart(output: RunOutput): string;
   table(columns: string[], rows: string[][]): string;
   meta(lines: string[]): string;
-  begin(nb: NotebookView): string;
+  /** `stamp`: the date line under the title (default: exported now). */
+  begin(nb: NotebookView, stamp?: string): string;
   end(): string;
   /** Last touch on the whole text (LaTeX: load pgfplots only when a figure uses it). */
   finish?(text: string): string;
@@ -65,10 +66,20 @@ function runMeta(run: RunView, cell: CellView): string[] {
   return lines;
 }
 
-export function renderNotebook(nb: NotebookView, w: DocumentWriter): string {
-  const out: string[] = [w.begin(nb)];
+export interface RenderOptions {
+  /** Replaces "exported <now>" under the title (a published record is the same file every time). */
+  stamp?: string;
+  /** Cell titles by cell id (shown in the cell headings). */
+  titles?: Record<string, string | null>;
+  /** Sections after the cells (a record's reviewers, hashes, citation). */
+  appendix?: string[];
+}
+
+export function renderNotebook(nb: NotebookView, w: DocumentWriter, opts: RenderOptions = {}): string {
+  const out: string[] = [w.begin(nb, opts.stamp)];
   nb.cells.forEach((cell, i) => {
-    out.push(w.heading(`Cell ${i + 1} · ${cell.kind}`, 2));
+    const title = opts.titles?.[cell.id] ?? (cell as { title?: string | null }).title ?? null;
+    out.push(w.heading(`Cell ${i + 1} · ${cell.kind}${title ? ` · ${title}` : ''}`, 2));
     if (cell.kind === 'note') {
       out.push(w.note(cell.source));
       return;
@@ -83,6 +94,7 @@ export function renderNotebook(nb: NotebookView, w: DocumentWriter): string {
     out.push(w.meta(runMeta(run, cell)));
     for (const o of run.outputs ?? []) out.push(renderOutput(w, o));
   });
+  out.push(...(opts.appendix ?? []));
   out.push(w.end());
   const text = out.filter(Boolean).join('\n\n') + '\n';
   return w.finish ? w.finish(text) : text;
