@@ -164,9 +164,17 @@ describe('published records', () => {
     const parsed = parseNotebookFile(sift.text);
     expect(parsed.errors).toEqual([]);
     expect(parsed.notebook.cells.map((c) => [c.kind, c.source])).toEqual(CELLS.map((c) => [c.kind, c.source]));
-    const file = await anon.call('get', `/api/records/${rid}/uploads/pattern`).buffer(true);
+    const file = await request(app.getHttpServer())
+      .get(`/api/records/${rid}/uploads/pattern`)
+      .buffer(true)
+      .parse((res, done) => {
+        const chunks: Buffer[] = [];
+        res.on('data', (c: Buffer) => chunks.push(c));
+        res.on('end', () => done(null, Buffer.concat(chunks)));
+      });
     expectStatus(file, 200);
-    expect(createHash('sha256').update(Buffer.from(file.body ?? file.text)).digest('hex')).toBe(createHash('sha256').update(UPLOAD).digest('hex'));
+    expect(file.headers['content-disposition']).toBe('attachment; filename="pattern.txt"');
+    expect(createHash('sha256').update(file.body as Buffer).digest('hex')).toBe(createHash('sha256').update(UPLOAD).digest('hex'));
     expectStatus(await anon.call('get', `/api/records/${rid}/uploads/nothing`), 404);
     expectStatus(await anon.call('get', `/api/records/${rid}/export?format=pdf`), 400);
   });
