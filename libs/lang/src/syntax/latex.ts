@@ -41,7 +41,7 @@ export function nameToLatex(name: string): string {
   else {
     // A trailing digit run reads as a subscript (x1 → x_{1}); anything else is one italic word.
     const sub = /^([A-Za-z\u0391-\u03c9])(\d+)$/.exec(base);
-    out = sub ? `${GREEK[sub[1]!] ?? sub[1]}_{${sub[2]}}` : `\\mathit{${chars.map((c) => (GREEK[c] ? `\\text{$${GREEK[c]}$}` : c === '_' ? '\\_' : c)).join('')}}`;
+    out = sub ? `${GREEK[sub[1]!] ?? sub[1]}_{${sub[2]}}` : `\\mathit{${chars.map((c) => (GREEK[c] ? `${GREEK[c]} ` : c === '_' ? '\\_' : c)).join('')}}`;
   }
   return out + primes;
 }
@@ -141,7 +141,9 @@ class Printer {
     if (name === 'abs' && args.length === 1) return `\\left\\lvert ${list} \\right\\rvert`;
     if (name === 'floor' && args.length === 1) return `\\left\\lfloor ${list} \\right\\rfloor`;
     if (name === 'ceil' && args.length === 1) return `\\left\\lceil ${list} \\right\\rceil`;
-    return `\\operatorname{${textEscape(name)}}\\left(${list}\\right)`;
+    // A one-letter name (φ) reads as the letter; a word as an operator name, its Greek letters as commands.
+    const head = [...name].length === 1 ? nameToLatex(name) : `\\operatorname{${[...textEscape(name)].map((c) => (GREEK[c] ? `${GREEK[c]} ` : c)).join('')}}`;
+    return `${head}\\left(${list}\\right)`;
   }
 
   private range(lo: Expr, hi: Expr, primes: boolean): string {
