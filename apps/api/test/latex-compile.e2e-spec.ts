@@ -28,6 +28,7 @@ describe('LaTeX export compiled with pdflatex', () => {
   for (const entry of manifest.notebooks) {
     it(`compiles the demo notebook ${entry.file} without errors`, () => {
       const tex = latexOf(join(SEEDS, entry.file), uploadsOf(entry));
+      expect(tex).not.toMatch(/--- failed at/); // every cell ran, so all of its output is typeset
       const pdf = compileLatex(tex);
       expect(pdf.errors).toEqual([]);
       expect(pdf.status).toBe(0);
@@ -72,6 +73,10 @@ describe('LaTeX export compiled with pdflatex', () => {
     expect(text).toContain('Powers of k');
     expect(text).toContain('[U+2603]'); // a character pdflatex cannot set is written as its code point
     expect(text).toContain('over p ∈ primes 3..29, 9 case(s) checked');
+    // Every cell of the fixture ran (a cell that fails to parse would hide its symbols from the test).
+    expect(text).not.toMatch(/failed at|error \(/);
+    // The table of k, k², k − 1 read back row by row (numbers right-aligned).
+    expect(flat(pdf.layout)).toContain('6 36 5');
   });
 
   it('wraps long source lines instead of running off the page', () => {
