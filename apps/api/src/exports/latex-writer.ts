@@ -5,9 +5,6 @@ import { latexText, listingLiterate, listingText } from './latex-text';
 import { markdownToLatex } from './markdown-latex';
 import type { DocumentWriter } from './notebook-document';
 
-/** Escapes LaTeX specials in running text (and maps the symbols pdflatex cannot read). */
-export const escapeLatex = latexText;
-
 const NUMERIC = /^[-−]?\d[\d_]*(?:[./]\d+)?(?:e[-+]?\d+)?$/i;
 
 /** Right-aligned columns for numbers (every non-empty cell a number), left-aligned otherwise. */
