@@ -22,7 +22,7 @@ module.exports = {
     // chevrotain (used by @cribra/lang) ships only ES modules; Jest on Node 20 needs CommonJS.
     '^.+\\.m?js$': ['@swc/jest', { ...swc, jsc: { ...swc.jsc, parser: { syntax: 'ecmascript' } } }],
   },
-  transformIgnorePatterns: ['/node_modules/(?!chevrotain/)', '/dist/'],
+  transformIgnorePatterns: ['/node_modules/(?!chevrotain/|marked/)', '/dist/'],
   // Our libraries are read from source, like vitest does.
   moduleNameMapper: {
     '^@cribra/engine/node$': '<rootDir>/../../libs/engine/src/node/index.ts',
@@ -30,6 +30,8 @@ module.exports = {
     // chevrotain is ESM only (its helper packages export an "import" entry only, which Jest cannot
     // resolve); its single-file bundle is compiled to CommonJS by the transform below instead.
     '^chevrotain$': '<rootDir>/../../node_modules/chevrotain/lib/chevrotain.mjs',
+    // marked (the note Markdown of the LaTeX export) is ES modules only as well.
+    '^marked$': '<rootDir>/../../node_modules/marked/lib/marked.esm.js',
     // chevrotain's helper packages export only an "import" condition, which Jest's resolver skips.
     '^@chevrotain/([a-z-]+)$': '<rootDir>/../../node_modules/@chevrotain/$1/lib/src/api.js',
   },

@@ -10,7 +10,7 @@ const SUITE_TIMEOUT_MS = 20 * 60 * 1000;
 export const SUITES = [
   { name: 'libs', title: 'vitest libs (engine, language, contracts, cli)', stack: false },
   { name: 'web', title: 'vitest web (components, jsdom)', stack: false },
-  { name: 'api', title: 'jest api (HTTP tests on the real PostgreSQL)', stack: true },
+  { name: 'api', title: 'jest api (HTTP tests on the real PostgreSQL)', stack: true, latex: true },
   { name: 'e2e', title: 'vitest e2e (browser tests on the running stack)', stack: true, browser: true },
 ];
 

@@ -17,6 +17,10 @@ if (!Number.isInteger(BASE) || BASE < 1024 || BASE > 65000) {
 }
 const PORTS = { api: BASE, pg: BASE + 1, smtp: BASE + 2, mailWeb: BASE + 3 };
 const CHROMIUM = '/usr/bin/chromium';
+// The API tests compile the LaTeX exports (pdflatex, pgfplots) and read the PDFs back (pdftotext).
+const TEX_TOOLS = ['/usr/bin/pdflatex', '/usr/bin/pdftotext', '/usr/bin/pdftoppm'];
+const TEX_PACKAGES = ['texlive-latex-base', 'texlive-latex-recommended', 'texlive-pictures', 'poppler-utils'];
+const hasPgfplots = () => ['/usr/share/texlive/texmf-dist/tex/latex/pgfplots/pgfplots.sty', '/usr/share/texmf/tex/latex/pgfplots/pgfplots.sty'].some(existsSync);
 
 function selectedSuites() {
   const arg = process.argv.slice(2).find((a) => a.startsWith('--only='));
@@ -102,6 +106,15 @@ async function main() {
       } catch (e) {
         warn(e.message);
         results.push({ suite: suite.name, passed: 0, failed: 1, skipped: 0, notes: [`not run: ${CHROMIUM} is missing`] });
+        continue;
+      }
+    }
+    if (suite.latex && (!TEX_TOOLS.every(existsSync) || !hasPgfplots())) {
+      try {
+        aptInstall(TEX_PACKAGES, 'TeX Live and poppler-utils for the LaTeX export tests (pdflatex, pgfplots, pdftotext)');
+      } catch (e) {
+        warn(e.message);
+        results.push({ suite: suite.name, passed: 0, failed: 1, skipped: 0, notes: ['not run: pdflatex, pgfplots or pdftotext is missing'] });
         continue;
       }
     }

@@ -1,6 +1,7 @@
 import type { INestApplication } from '@nestjs/common';
 import { DataSource } from 'typeorm';
 import { addCell, addMember, createNotebook, NO_SUCH_ID, person, type Person } from './helpers/notebooks';
+import { compileLatex, flat } from './helpers/latex';
 import { createTestApp } from './helpers/test-app';
 
 /** Recorded outputs in the shape @cribra/lang produces (a value, a table, a verdict). */
@@ -82,11 +83,17 @@ describe('exports', () => {
     expect(res.status).toBe(200);
     expect(res.headers['content-type']).toMatch(/^application\/x-latex/);
     const tex = res.text;
-    expect(tex.startsWith('\\documentclass{article}')).toBe(true);
+    expect(tex.startsWith('\\documentclass[11pt]{article}')).toBe(true);
     expect(tex).toContain('\\title{Twin \\& cousin counts\\_at 10\\textasciicircum{}7}');
-    expect(tex).toContain('\\begin{Verbatim}[fontsize=\\small]\ntally(13, 1)\n\\end{Verbatim}');
-    expect(tex).toContain('\\begin{longtable}{ll}');
+    expect(tex).toContain('\\begin{lstlisting}[style=sift]\ntally(13, 1)\n\\end{lstlisting}');
+    // The gap column is all numbers (right-aligned), the count column is not.
+    expect(tex).toContain('\\begin{longtable}{@{}rl@{}}');
     expect(tex).toContain('22 & two, "rare" \\\\');
+    // The note's maths stays maths.
+    expect(tex).toContain('We compare gap counts; see $g = 2$.');
+    const pdf = compileLatex(tex);
+    expect(pdf.errors).toEqual([]);
+    expect(flat(pdf.text)).toContain('over p ∈ primes 5..23, 6 case(s) checked');
     expect(tex.trimEnd().endsWith('\\end{document}')).toBe(true);
     const actions = (await owner.client.call('get', `/api/notebooks/${notebookId}/audit`)).body.map((e: { action: string }) => e.action);
     expect(actions).toEqual(expect.arrayContaining(['export.markdown', 'export.latex']));

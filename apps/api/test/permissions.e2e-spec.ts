@@ -79,7 +79,13 @@ describe('on a locked notebook', () => {
 
   // Every content-changing action is refused (409 for anyone with access, 403 for others);
   // reading, the lock record, checks and duplication stay as the table says.
-  const LOCKED_OK: Partial<Record<NotebookAction, number[]>> = { 'lock.read': [200], 'lock.check': [202] };
+  // Publishing: the first allowed person publishes (201), the next is told it already is (409).
+  const LOCKED_OK: Partial<Record<NotebookAction, number[]>> = {
+    'lock.read': [200],
+    'lock.check': [202],
+    'record.publish': [201, 409],
+    'record.read': [200, 404],
+  };
 
   describe.each(ACTIONS)('%s', (action) => {
     it.each(WHO)('as %s', async (who) => {
@@ -93,7 +99,9 @@ describe('on a locked notebook', () => {
       if (!expected.includes(res.status)) {
         throw new Error(`locked ${action} as ${who}: expected ${expected.join(' or ')}, got ${res.status} ${JSON.stringify(res.body).slice(0, 300)}`);
       }
-      if (res.status === 409) expect(res.body.details).toEqual({ reason: 'notebook_locked', notebookId: locked.id });
+      // A refused change says why; publishing a record twice is the one other 409 on a locked notebook.
+      if (res.status === 409 && action === 'record.publish') expect(res.body.details.reason).toBe('already_published');
+      else if (res.status === 409) expect(res.body.details).toEqual({ reason: 'notebook_locked', notebookId: locked.id });
     });
   });
 });

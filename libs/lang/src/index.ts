@@ -20,3 +20,7 @@ export {
   parseNotebookFile, formatNotebookFile,
   type NotebookFile, type NotebookFileCell, type NotebookCellKind, type ParsedNotebookFile, type NotebookFileError,
 } from './notebook/file';
+export {
+  exprToLatex, statementToLatex, claimsToLatex, nameToLatex, GREEK_LATEX,
+  type ClaimLatex, type LatexOptions,
+} from './syntax/latex';

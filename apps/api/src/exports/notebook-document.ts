@@ -9,21 +9,39 @@ import { asTable, cellText } from './table-export';
 export interface DocumentWriter {
   heading(text: string, level: 1 | 2): string;
   paragraph(text: string): string;
+  /** A note cell's Markdown. */
+  note(markdown: string): string;
+  /** A cell's Sift source. */
   code(source: string): string;
+  /** A value's exact text (may be very long). */
+  value(text: string): string;
+  /** The claims of a claim cell as mathematics (after the source), or '' when the format has none. */
+  claims(source: string): string;
+  chart(output: RunOutput): string;
   table(columns: string[], rows: string[][]): string;
   meta(lines: string[]): string;
-  begin(nb: NotebookView): string;
+  /** `stamp`: the date line under the title (default: exported now). */
+  begin(nb: NotebookView, stamp?: string): string;
   end(): string;
+  /** Last touch on the whole text (LaTeX: load pgfplots only when a figure uses it). */
+  finish?(text: string): string;
 }
 
-function describeVerdict(o: RunOutput): string {
-  const v = o as { holds?: unknown; over?: unknown; checked?: unknown; skipped?: unknown; summary?: unknown; statement?: unknown };
+/** The evidence sentence, said once per claim (Sift's own summary says it too, so that is not repeated). */
+export const EVIDENCE_WORDING = 'Computed evidence over the checked range, not a proof.';
+
+export function describeVerdict(o: RunOutput): string {
+  const v = o as { holds?: unknown; over?: unknown; checked?: unknown; skipped?: unknown; summary?: unknown; statement?: unknown; label?: unknown };
   const verdict = v.holds === true ? 'holds' : v.holds === false ? 'fails' : 'has no verdict';
-  const parts = [`Claim ${typeof v.statement === 'string' ? `\`${v.statement}\` ` : ''}${verdict}`];
+  const name = typeof v.label === 'string' && v.label ? `${v.label} ` : '';
+  const parts = [`Claim ${name}${verdict}`];
   if (typeof v.over === 'string') parts.push(`over ${v.over}`);
   if (typeof v.checked === 'number') parts.push(`${v.checked} case(s) checked`);
-  const text = `${parts.join(', ')}.${typeof v.summary === 'string' ? ` ${v.summary}` : ''}`;
-  return v.holds === true ? `${text} (Computed evidence over the checked range, not a proof.)` : text;
+  if (typeof v.skipped === 'number' && v.skipped > 0) parts.push(`${v.skipped} left out by its conditions`);
+  const text = `${parts.join(', ')}.`;
+  if (v.holds === true) return `${text} ${EVIDENCE_WORDING}`;
+  // A failing claim: Sift's summary names the counterexample.
+  return typeof v.summary === 'string' ? `${text} ${v.summary.charAt(0).toUpperCase()}${v.summary.slice(1)}.` : text;
 }
 
 function renderOutput(w: DocumentWriter, o: RunOutput): string {
@@ -32,9 +50,9 @@ function renderOutput(w: DocumentWriter, o: RunOutput): string {
   if (table) return (label ? w.paragraph(String(o.label)) + '\n\n' : '') + w.table(table.columns, table.rows.map((r) => r.map(cellText)));
   if (o.kind === 'verdict') return w.paragraph(describeVerdict(o));
   if (o.kind === 'text' && typeof o.text === 'string') return w.paragraph(o.text);
-  if (o.kind === 'value' && typeof o.text === 'string') return w.code(`${label}${o.text}`);
-  if (o.kind === 'chart') return w.paragraph(`Chart${typeof o.title === 'string' ? `: ${o.title}` : ''} (see the notebook for the figure).`);
-  return w.code(JSON.stringify(o, null, 2));
+  if (o.kind === 'value' && typeof o.text === 'string') return w.value(`${label}${o.text}`);
+  if (o.kind === 'chart') return w.chart(o);
+  return w.value(JSON.stringify(o, null, 2));
 }
 
 function runMeta(run: RunView, cell: CellView): string[] {
@@ -48,15 +66,26 @@ function runMeta(run: RunView, cell: CellView): string[] {
   return lines;
 }
 
-export function renderNotebook(nb: NotebookView, w: DocumentWriter): string {
-  const out: string[] = [w.begin(nb)];
+export interface RenderOptions {
+  /** Replaces "exported <now>" under the title (a published record is the same file every time). */
+  stamp?: string;
+  /** Cell titles by cell id (shown in the cell headings). */
+  titles?: Record<string, string | null>;
+  /** Sections after the cells (a record's reviewers, hashes, citation). */
+  appendix?: string[];
+}
+
+export function renderNotebook(nb: NotebookView, w: DocumentWriter, opts: RenderOptions = {}): string {
+  const out: string[] = [w.begin(nb, opts.stamp)];
   nb.cells.forEach((cell, i) => {
-    out.push(w.heading(`Cell ${i + 1} · ${cell.kind}`, 2));
+    const title = opts.titles?.[cell.id] ?? (cell as { title?: string | null }).title ?? null;
+    out.push(w.heading(`Cell ${i + 1} · ${cell.kind}${title ? ` · ${title}` : ''}`, 2));
     if (cell.kind === 'note') {
-      out.push(w.paragraph(cell.source));
+      out.push(w.note(cell.source));
       return;
     }
     out.push(w.code(cell.source));
+    if (cell.kind === 'claim') out.push(w.claims(cell.source));
     const run = cell.latestRun;
     if (!run) {
       out.push(w.paragraph('Not run yet.'));
@@ -65,6 +94,8 @@ export function renderNotebook(nb: NotebookView, w: DocumentWriter): string {
     out.push(w.meta(runMeta(run, cell)));
     for (const o of run.outputs ?? []) out.push(renderOutput(w, o));
   });
+  out.push(...(opts.appendix ?? []));
   out.push(w.end());
-  return out.filter(Boolean).join('\n\n') + '\n';
+  const text = out.filter(Boolean).join('\n\n') + '\n';
+  return w.finish ? w.finish(text) : text;
 }

@@ -32,7 +32,10 @@ export type NotebookAction =
   | 'lock.create'
   | 'lock.read'
   | 'lock.check'
-  | 'notebook.duplicate';
+  | 'notebook.duplicate'
+  // Published records (the public page itself needs no role: /api/records/:id).
+  | 'record.publish'
+  | 'record.read';
 
 /** The acting person as the policy needs it. */
 export interface Actor {
@@ -73,6 +76,9 @@ export const MATRIX: Record<NotebookAction, readonly MemberRole[]> = {
   // Anyone with access can check a lock record by re-running it.
   'lock.check': ['owner', 'editor', 'reviewer', 'viewer'],
   'notebook.duplicate': ['owner', 'editor', 'reviewer', 'viewer'],
+  // Publishing and withdrawing a locked notebook's record: the owner's word, like the lock.
+  'record.publish': ['owner'],
+  'record.read': ['owner', 'editor', 'reviewer', 'viewer'],
 };
 
 /** Site admins may not do these unless they hold the role: a sign-off is a reviewer's own word. */

@@ -167,6 +167,10 @@ export const PROBES: Record<NotebookAction, Probe> = {
       return res;
     },
   },
+  // A draft's record cannot be published: an allowed person is told it is not locked (409).
+  'record.publish': { ok: [409], send: (c, f) => c.call('post', `/api/notebooks/${f.id}/publication`) },
+  // Not published: an allowed person learns that (404 after the check).
+  'record.read': { ok: [404], send: (c, f) => c.call('get', `/api/notebooks/${f.id}/publication`) },
 };
 
 export function allowed(action: NotebookAction, who: Who): boolean {

@@ -1,4 +1,4 @@
-import { INVITATION_PATH, RESET_PASSWORD_PATH } from '@cribra/contracts';
+import { INVITATION_PATH, RECORDS_PATH, RESET_PASSWORD_PATH } from '@cribra/contracts';
 import { lazy, Suspense } from 'react';
 import { Navigate, Outlet, type RouteObject } from 'react-router-dom';
 import { LoadingState } from '../../components/loading-state';
@@ -18,6 +18,7 @@ const AccountPage = lazy(() => import('../../features/account/pages/account-page
 const AdminUsersPage = lazy(() => import('../../features/admin/pages/admin-users-page'));
 const InvitationPage = lazy(() => import('../../features/invitations/pages/invitation-page'));
 const NotFoundPage = lazy(() => import('./not-found-page'));
+const RecordPage = lazy(() => import('../../features/records/pages/record-page'));
 
 function Plain() {
   return (
@@ -44,6 +45,8 @@ export const routes: RouteObject[] = [
       { path: RESET_PASSWORD_PATH, element: <ResetPasswordPage /> },
       // The e-mailed invitation link; works signed out (sign in or sign up on the page).
       { path: `${INVITATION_PATH}/:token`, element: <InvitationPage /> },
+      // A published record: public, readable without signing in.
+      { path: `${RECORDS_PATH}/:id`, element: <RecordPage /> },
     ],
   },
   {

@@ -3,6 +3,7 @@ import { CollaborationPanel } from '../../features/collaboration/components/coll
 import { notebookKeys } from '../../features/notebooks/api/keys';
 import { canEditCells } from '../../features/notebooks/lib/permissions';
 import NotebookPage from '../../features/notebooks/pages/notebook-page';
+import { PublishSection } from '../../features/records/components/publish-section';
 import { UploadsSection } from '../../features/uploads/components/uploads-section';
 import { useCurrentUser } from '../../lib/current-user';
 
@@ -23,6 +24,14 @@ export default function NotebookRoute() {
               label: 'Files',
               content: <UploadsSection notebookId={nb.id} canEdit={canEditCells({ myRole: nb.myRole, status: nb.status, siteRole: me.data?.siteRole })} />,
             },
+            // A locked notebook's record can be published (owner, admins: the `record.publish` row of the permission table).
+            ...(nb.status === 'locked'
+              ? [{
+                  value: 'publication',
+                  label: 'Publish',
+                  content: <PublishSection notebookId={nb.id} canPublish={nb.myRole === 'owner' || me.data?.siteRole === 'admin'} />,
+                }]
+              : []),
           ]}
           onNotebookChanged={() => {
             void qc.invalidateQueries({ queryKey: notebookKeys.detail(nb.id) });
