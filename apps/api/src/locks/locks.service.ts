@@ -119,8 +119,8 @@ export class LocksService {
       const cells = await loadDigestCells(m, notebookId);
       for (const c of cells) {
         const [{ id: cellId }] = await m.query(
-          `INSERT INTO cells (notebook_id, kind, source, position, author_id)
-           SELECT $1, kind, source, position, author_id FROM cells WHERE id = $2 RETURNING id`,
+          `INSERT INTO cells (notebook_id, kind, source, position, author_id, title)
+           SELECT $1, kind, source, position, author_id, title FROM cells WHERE id = $2 RETURNING id`,
           [id, c.id],
         );
         if (c.runId) {
