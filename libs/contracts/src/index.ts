@@ -4,3 +4,4 @@ export * from './auth';
 export * from './notebooks';
 export * from './queue';
 export * from './review';
+export * from './lock-record';
