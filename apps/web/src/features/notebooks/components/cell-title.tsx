@@ -1,5 +1,5 @@
 import { CELL_TITLE_MAX, type CellView } from '@cribra/contracts';
-import { Button, TextField, Typography } from '@mui/material';
+import { Button, ButtonBase, TextField, Typography } from '@mui/material';
 import { useState } from 'react';
 import { errorMessage } from '../../../lib/api-error';
 import { useUpdateCell } from '../api/update-cell';
@@ -38,10 +38,14 @@ export function CellTitle({ cell, index, canEdit }: Props) {
   }
   if (cell.title) {
     return (
-      <Typography component="h3" sx={{ fontWeight: 600, cursor: canEdit ? 'text' : undefined }}
-        title={canEdit ? 'Click to rename' : undefined}
-        onClick={canEdit ? () => { setText(cell.title ?? ''); setEditing(true); } : undefined}>
-        {cell.title}
+      <Typography component="h3" sx={{ fontWeight: 600 }}>
+        {canEdit ? (
+          <ButtonBase title="Rename" aria-label={`${cell.title} (rename cell ${index + 1})`}
+            sx={{ font: 'inherit', cursor: 'text', borderRadius: 0.5, px: 0.25 }}
+            onClick={() => { setText(cell.title ?? ''); setEditing(true); }}>
+            {cell.title}
+          </ButtonBase>
+        ) : cell.title}
       </Typography>
     );
   }
