@@ -29,6 +29,12 @@ function hash(r: Omit<LockRecord, 'recordSha256'> & { recordSha256?: string }): 
   return createHash('sha256').update(canonicalJson(rest), 'utf8').digest('hex');
 }
 
+/** The revision digest (docs/permissions.md) of the cells. */
+function revisionDigest(cells: LockedCell[]): string {
+  const text = `cribra-revision-v1\n${JSON.stringify(cells.map((c) => [c.id, c.kind, c.position, c.source, c.outputDigest]))}`;
+  return createHash('sha256').update(text).digest('hex');
+}
+
 function makeRecord(): LockRecord {
   const data = new MemoryDataProvider().addUpload('triple', { kind: 'tuples', values: TRIPLE.map(BigInt) });
   const cells: LockedCell[] = CELLS.map((c, position) => {
@@ -62,7 +68,7 @@ function makeRecord(): LockRecord {
     tags: [],
     authors: [{ id: '00000000-0000-4000-8000-000000000200', displayName: 'Ilse Marenko', role: 'owner' }],
     notebookRevision: 4,
-    revisionDigest: 'a'.repeat(64),
+    revisionDigest: revisionDigest(cells),
     digestVersion: 'cribra-revision-v1',
     lockedBy: { id: '00000000-0000-4000-8000-000000000200', displayName: 'Ilse Marenko' },
     lockedAt: '2026-12-04T12:00:00.000Z',
@@ -106,9 +112,10 @@ describe('cribra verify', () => {
     expect(run.stdout).toContain('cell 2 · query · Occurrences at level 13: SAME');
     expect(run.stdout).toContain(`   recorded ${record.cells[1]!.outputDigest}\n   re-run   ${record.cells[1]!.outputDigest}`);
     expect(run.stdout).toContain('cells: 2 same, 0 differ, 0 failed, 1 notes');
+    expect(run.stdout).toContain(`revision digest same: recorded ${record.revisionDigest}, from the cells ${record.revisionDigest}`);
 
     const json = JSON.parse(cribra('verify', write('ok2.json', record), '--json', '--workers', '1').stdout);
-    expect(json).toMatchObject({ hashOk: true, exitCode: 0, counts: { same: 2, differs: 0, failed: 0, skipped: 1 } });
+    expect(json).toMatchObject({ hashOk: true, exitCode: 0, counts: { same: 2, differs: 0, failed: 0, skipped: 1 }, revision: { same: true } });
     expect(json.cells.map((c: { status: string }) => c.status)).toEqual(['skipped', 'same', 'same']);
     expect(json.cells[2].newDigest).toBe(record.cells[2]!.outputDigest);
   });
@@ -131,6 +138,17 @@ describe('cribra verify', () => {
     expect(run2.code).toBe(1);
     expect(run2.stdout).toContain('cell 3 · claim · Odd primes: DIFFERS');
     expect(run2.stdout).toContain(`   recorded ${'f'.repeat(64)}\n   re-run   ${makeRecord().cells[2]!.outputDigest}`);
+    // The reviewers signed the revision digest of the original cells: that no longer matches either.
+    expect(run2.stdout).toContain('revision digest DIFFERS');
+
+    // A source changed (and its sha-256 not) is reported even before the digests are compared.
+    const sourceChanged = altered((r) => {
+      r.cells[1]!.source = 'show hits(upload("triple"), 17) as "hits"';
+    });
+    const j3 = JSON.parse(cribra('verify', write('source.json', sourceChanged), '--json', '--workers', '1').stdout);
+    expect(j3.exitCode).toBe(1);
+    expect(j3.cells[1]).toMatchObject({ status: 'differs', note: 'the source does not match its recorded sha-256' });
+    expect(j3.revision.same).toBe(false);
   });
 
   it('exits 2 with a hash error when the record was altered and its hash not updated', () => {

@@ -62,7 +62,8 @@ export async function verifyCommand(argv: string[], out: Io = (s) => process.std
   const cells = record.cells.map((c) => judge(c, results.get(c.id)));
   const counts = { same: 0, differs: 0, failed: 0, skipped: 0 };
   for (const c of cells) counts[c.status]++;
-  const exitCode = counts.differs || counts.failed ? 1 : 0;
+  const revision = revisionCheck(record);
+  const exitCode = counts.differs || counts.failed || revision.same === false ? 1 : 0;
   const millis = Date.now() - started;
 
   if (args.json) {
@@ -74,6 +75,7 @@ export async function verifyCommand(argv: string[], out: Io = (s) => process.std
       recordSha256: record.recordSha256,
       hashOk: true,
       revisionDigest: record.revisionDigest,
+      revision,
       cells,
       counts,
       exitCode,
@@ -88,14 +90,31 @@ export async function verifyCommand(argv: string[], out: Io = (s) => process.std
     out(`   recorded ${c.recordedDigest ?? '—'}\n   re-run   ${c.newDigest ?? '—'}\n`);
     if (c.note) out(`   ${c.note}\n`);
   }
-  out(`\ncells: ${counts.same} same, ${counts.differs} differ, ${counts.failed} failed, ${counts.skipped} notes · ${millis} ms\n`);
+  if (revision.same === null) out(`\nrevision digest: not checked (${record.digestVersion ?? 'no digest version'})\n`);
+  else out(`\nrevision digest ${revision.same ? 'same' : 'DIFFERS'}: recorded ${record.revisionDigest}, from the cells ${revision.computed}\n`);
+  out(`cells: ${counts.same} same, ${counts.differs} differ, ${counts.failed} failed, ${counts.skipped} notes · ${millis} ms\n`);
   return exitCode;
+}
+
+/**
+ * The revision digest the sign-offs bind to, recomputed from the record's cells (docs/permissions.md):
+ * SHA-256 of `cribra-revision-v1\n` + JSON of [id, kind, position, source, outputDigest] per cell.
+ * `same` is null for another digest version.
+ */
+function revisionCheck(record: LockRecord): { computed: string | null; same: boolean | null } {
+  if (record.digestVersion !== 'cribra-revision-v1') return { computed: null, same: null };
+  const cells = [...record.cells].sort((a, b) => a.position - b.position).map((c) => [c.id, c.kind, c.position, c.source, c.outputDigest]);
+  const computed = createHash('sha256').update(`cribra-revision-v1\n${JSON.stringify(cells)}`, 'utf8').digest('hex');
+  return { computed, same: computed === record.revisionDigest };
 }
 
 /** same / differs / failed / skipped for one cell of the record. */
 function judge(c: LockedCell, r: RunResult | undefined): RecordCheckCell {
   const base = { position: c.position, cellId: c.id, kind: c.kind, title: c.title ?? null, recordedDigest: c.outputDigest };
   if (c.kind === 'note') return { ...base, status: 'skipped', newDigest: null, note: null };
+  if (typeof c.sourceSha256 === 'string' && createHash('sha256').update(c.source, 'utf8').digest('hex') !== c.sourceSha256) {
+    return { ...base, status: 'differs', newDigest: r?.digest ?? null, note: 'the source does not match its recorded sha-256' };
+  }
   if (!r || r.error) {
     return { ...base, status: 'failed', newDigest: null, note: r?.error ? `the re-run failed (${r.error.kind}): ${r.error.message}` : 'not run' };
   }
