@@ -5,3 +5,4 @@ export * from './notebooks';
 export * from './queue';
 export * from './review';
 export * from './records';
+export * from './lock-record';

@@ -41,7 +41,8 @@
  *   GET    /api/uploads/:id                                  → UploadView
  *   GET    /api/uploads/:id/content                          → UploadContent
  *   DELETE /api/uploads/:id                                  → 204
- *   GET    /api/notebooks/:id/export?format=markdown|latex   → text/markdown | application/x-latex (attachment)
+ *   GET    /api/notebooks/:id/export?format=markdown|latex|sift → text/markdown | application/x-latex | text/plain (.sift) (attachment)
+ *   POST   /api/notebooks/import    multipart: file (.sift)  → 201 NotebookView (400 NotebookImportDetails; nothing stored)
  *   GET    /api/runs/:id/outputs/:index/export?format=csv|json → text/csv | application/json (table outputs)
  *   GET    /api/uploads/:id/export?format=csv|json           → text/csv | application/json
  *   GET    /api/notebooks/:id/audit                          → AuditEventView[] (owner, admin)
@@ -70,6 +71,8 @@ export const NOTEBOOK_SUMMARY_MAX = 4000;
 export const NOTEBOOK_TAGS_MAX = 20;
 export const NOTEBOOK_TAG_MAX = 40;
 export const CELL_SOURCE_MAX = 100_000;
+/** A cell title is one line of at most this many characters. */
+export const CELL_TITLE_MAX = 200;
 
 /** One page of a list. `page` counts from 1. */
 export interface Page<T> {
@@ -173,6 +176,8 @@ export interface CellView {
   id: string;
   notebookId: string;
   kind: CellKind;
+  /** Optional heading of the cell (one line); not part of the revision digest. */
+  title: string | null;
   source: string;
   /** 0-based, dense within a notebook. */
   position: number;
@@ -188,6 +193,8 @@ export interface CellView {
 export interface CreateCellBody {
   kind: CellKind;
   source: string;
+  /** One line, at most CELL_TITLE_MAX characters; blank means none. */
+  title?: string | null;
   /** Insert before the cell now at this position; default: append. */
   position?: number;
 }
@@ -197,6 +204,8 @@ export interface UpdateCellBody {
   revision: number;
   source?: string;
   kind?: CellKind;
+  /** A new title; null or blank removes it. A title alone does not bump the cell revision. */
+  title?: string | null;
 }
 
 /** 409 details for a stale cell edit or delete. */
@@ -469,7 +478,17 @@ export interface UploadParseDetails {
 
 // ---------------------------------------------------------------- exports
 
-export type NotebookExportFormat = 'markdown' | 'latex';
+export type NotebookExportFormat = 'markdown' | 'latex' | 'sift';
+
+/** A notebook file (`.sift`) is read with the limits of uploads: at most UPLOAD_MAX_BYTES, UTF-8 text. */
+export const NOTEBOOK_FILE_EXTENSIONS: readonly string[] = ['.sift', '.txt'];
+
+/** 400 details of a refused notebook file (POST /api/notebooks/import): nothing was stored. */
+export interface NotebookImportDetails {
+  reason: 'parse_error' | 'too_large' | 'bad_type' | 'empty' | 'invalid';
+  /** 1-based line of the file with its problem. */
+  errors: Array<{ line: number; message: string }>;
+}
 export type TableExportFormat = 'csv' | 'json';
 
 // ---------------------------------------------------------------- audit

@@ -1,5 +1,5 @@
 import type { RunOutput, UserRef } from './notebooks';
-import type { LockRecord } from './review';
+import type { LockRecord } from './lock-record';
 
 /**
  * Published records: the lock record of a locked notebook at a permanent public address.

@@ -295,45 +295,7 @@ export interface StaleDigestDetails {
 
 // ---------------------------------------------------------------- lock records
 
-export interface LockSigner {
-  reviewId: string;
-  user: UserRef;
-  signedAt: string;
-  verificationId: string | null;
-  comment: string;
-}
-
-export interface LockedCell {
-  id: string;
-  position: number;
-  kind: string;
-  /** sha-256 of the source (the full source is in the JSON export). */
-  sourceSha256: string;
-  source: string;
-  outputDigest: string | null;
-  runId: string | null;
-  engineVersion: string | null;
-  languageVersion: string | null;
-}
-
-export interface LockRecord {
-  notebookId: string;
-  title: string;
-  notebookRevision: number;
-  revisionDigest: string;
-  digestVersion: string;
-  lockedBy: UserRef;
-  lockedAt: string;
-  signers: LockSigner[];
-  requiredSignoffs: number;
-  /** Versions of the API process that locked (engine and Sift). */
-  engineVersion: string;
-  languageVersion: string;
-  /** Distinct versions recorded on the cells' runs. */
-  runEngineVersions: string[];
-  runLanguageVersions: string[];
-  cells: LockedCell[];
-}
+// The lock record itself (LockRecord and its parts) is defined in ./lock-record.ts.
 
 export type LockExportFormat = 'json' | 'markdown';
 

@@ -6,6 +6,7 @@ interface CellRow {
   id: string;
   notebook_id: string;
   kind: CellView['kind'];
+  title: string | null;
   source: string;
   position: number;
   revision: number;
@@ -16,7 +17,7 @@ interface CellRow {
 }
 
 const SELECT_CELL = `
-  SELECT c.id, c.notebook_id, c.kind, c.source, c.position, c.revision, c.author_id,
+  SELECT c.id, c.notebook_id, c.kind, c.title, c.source, c.position, c.revision, c.author_id,
          u.display_name AS author_name, c.created_at, c.updated_at
     FROM cells c JOIN users u ON u.id = c.author_id`;
 
@@ -31,6 +32,7 @@ async function withRuns(db: Db, rows: CellRow[]): Promise<CellView[]> {
     id: r.id,
     notebookId: r.notebook_id,
     kind: r.kind,
+    title: r.title,
     source: r.source,
     position: r.position,
     revision: r.revision,

@@ -8,6 +8,8 @@ export class CellEntity {
   @Column({ name: 'notebook_id', type: 'uuid' }) notebookId!: string;
   @Column({ type: 'varchar', length: 8 }) kind!: CellKind;
   @Column({ type: 'text', default: '' }) source!: string;
+  /** Optional heading of the cell card (not part of the revision digest). */
+  @Column({ type: 'varchar', length: 200, nullable: true }) title!: string | null;
   @Column({ type: 'int' }) position!: number;
   @Column({ type: 'int', default: 1 }) revision!: number;
   @Column({ name: 'author_id', type: 'uuid' }) authorId!: string;

@@ -9,6 +9,9 @@ import { CreateCellDto } from './dto/create-cell.dto';
 import { ReorderCellsDto } from './dto/reorder-cells.dto';
 import { UpdateCellDto } from './dto/update-cell.dto';
 
+/** A title as stored: trimmed, null when blank. */
+export const cellTitle = (t: string | null | undefined): string | null => (t && t.trim() ? t.trim() : null);
+
 /**
  * Cells with optimistic concurrency. Every change also bumps the notebook revision in the same
  * transaction (the review feature's revision digest and sign-offs depend on it).
@@ -62,8 +65,8 @@ export class CellsService {
       const position = body.position === undefined ? n : Math.min(body.position, n);
       await m.query(`UPDATE cells SET position = position + 1 WHERE notebook_id = $1 AND position >= $2`, [notebookId, position]);
       const [{ id }] = await m.query(
-        `INSERT INTO cells (notebook_id, kind, source, position, author_id) VALUES ($1, $2, $3, $4, $5) RETURNING id`,
-        [notebookId, body.kind, body.source, position, actor.id],
+        `INSERT INTO cells (notebook_id, kind, source, position, author_id, title) VALUES ($1, $2, $3, $4, $5, $6) RETURNING id`,
+        [notebookId, body.kind, body.source, position, actor.id, cellTitle(body.title)],
       );
       await this.bumpNotebook(m, notebookId);
       await this.audit.record(actor.id, 'cell.create', notebookId, { cellId: id, kind: body.kind }, m);
@@ -73,22 +76,28 @@ export class CellsService {
   }
 
   async update(actor: Actor, id: string, body: UpdateCellDto): Promise<CellView> {
-    if (body.source === undefined && body.kind === undefined) {
+    if (body.source === undefined && body.kind === undefined && body.title === undefined) {
       throw new BadRequestException({
-        message: 'Send source or kind to change',
-        details: [{ field: 'source', messages: ['source or kind is required'] }],
+        message: 'Send source, kind or title to change',
+        details: [{ field: 'source', messages: ['source, kind or title is required'] }],
       });
     }
+    // Only source and kind make a new cell revision (runs are per revision); a title is a label.
+    const content = body.source !== undefined || body.kind !== undefined;
     const updated = await this.db.transaction(async (m) => {
       const [rows] = await m.query(
-        `UPDATE cells SET source = coalesce($3, source), kind = coalesce($4, kind), revision = revision + 1,
-                author_id = $5, updated_at = now()
+        `UPDATE cells SET source = coalesce($3, source), kind = coalesce($4, kind), revision = revision + $6::int,
+                title = CASE WHEN $7::boolean THEN $8 ELSE title END, author_id = $5, updated_at = now()
           WHERE id = $1 AND revision = $2 RETURNING notebook_id, revision`,
-        [id, body.revision, body.source ?? null, body.kind ?? null, actor.id],
+        [id, body.revision, body.source ?? null, body.kind ?? null, actor.id, content ? 1 : 0, body.title !== undefined, cellTitle(body.title)],
       );
       if (!rows.length) return false;
       await this.bumpNotebook(m, rows[0].notebook_id);
-      const fields = [...(body.source !== undefined ? ['source'] : []), ...(body.kind !== undefined ? ['kind'] : [])];
+      const fields = [
+        ...(body.source !== undefined ? ['source'] : []),
+        ...(body.kind !== undefined ? ['kind'] : []),
+        ...(body.title !== undefined ? ['title'] : []),
+      ];
       await this.audit.record(actor.id, 'cell.update', rows[0].notebook_id, { cellId: id, revision: rows[0].revision, fields }, m);
       return true;
     });

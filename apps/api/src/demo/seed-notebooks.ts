@@ -34,12 +34,6 @@ function meta(nb: NotebookFile, key: string): string | undefined {
   return nb.meta.find(([k]) => k === key)?.[1];
 }
 
-/** A cell's text in Cribra: notes keep their title as a heading, other cells as a comment line. */
-function cellSource(c: NotebookFile['cells'][number]): string {
-  if (!c.title) return c.source;
-  return c.kind === 'note' ? `### ${c.title}\n\n${c.source}` : `// ${c.title}\n${c.source}`;
-}
-
 /**
  * Loads the demo notebooks (idempotent: a notebook whose owner already has one with the same title
  * is left alone). Cells come from .sift notebook files; their runs are computed here with Sift's
@@ -113,10 +107,10 @@ async function seedOne(
   }
 
   for (const [position, cell] of nb.cells.entries()) {
-    const source = cellSource(cell);
+    const source = cell.source;
     const [{ id: cellId }] = await m.query(
-      `INSERT INTO cells (notebook_id, kind, source, position, author_id) VALUES ($1, $2, $3, $4, $5) RETURNING id`,
-      [id, cell.kind, source, position, ownerId],
+      `INSERT INTO cells (notebook_id, kind, source, position, author_id, title) VALUES ($1, $2, $3, $4, $5, $6) RETURNING id`,
+      [id, cell.kind, source, position, ownerId, cell.title],
     );
     if (cell.kind === 'note' || spec.runCells === false) continue;
     const started = new Date();

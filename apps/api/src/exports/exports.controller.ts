@@ -29,8 +29,8 @@ export class ExportsController {
   ) {}
 
   @Get('notebooks/:id/export')
-  @ApiProduces('text/markdown', 'application/x-latex')
-  @ApiOperation({ summary: 'The notebook with its latest results as Markdown or LaTeX' })
+  @ApiProduces('text/markdown', 'application/x-latex', 'text/plain')
+  @ApiOperation({ summary: 'The notebook with its latest results as Markdown or LaTeX, or its cells as a .sift notebook file' })
   async notebook(
     @CurrentUser() user: UserEntity,
     @Param('id', ParseUUIDPipe) id: string,

@@ -8,6 +8,7 @@ import { UploadsService } from '../uploads/uploads.service';
 import { latexWriter } from './latex-writer';
 import { markdownWriter } from './markdown-writer';
 import { renderNotebook } from './notebook-document';
+import { siftNotebookFile } from './sift-writer';
 import { asTable, toCsv, toJsonRows, type Table } from './table-export';
 
 export interface ExportFile {
@@ -31,6 +32,9 @@ export class ExportsService {
     const nb = await this.notebooks.view(actor, id);
     const md = format === 'markdown';
     await this.audit.record(actor.id, `export.${format}`, id, { revision: nb.revision });
+    if (format === 'sift') {
+      return { fileName: `${slug(nb.title)}-r${nb.revision}.sift`, mediaType: 'text/plain; charset=utf-8', body: siftNotebookFile(nb) };
+    }
     return {
       fileName: `${slug(nb.title)}-r${nb.revision}.${md ? 'md' : 'tex'}`,
       mediaType: md ? 'text/markdown; charset=utf-8' : 'application/x-latex; charset=utf-8',

@@ -2,6 +2,7 @@ import { ConflictException, Inject, Injectable, NotFoundException } from '@nestj
 import type { ConfigType } from '@nestjs/config';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
+import { canonicalJson } from '@cribra/lang';
 import {
   NOTEBOOK_TITLE_MAX,
   type DuplicateNotebookResponse,
@@ -18,6 +19,7 @@ import { VerificationsService } from '../reviews/verifications.service';
 import { DuplicateNotebookDto } from './dto/duplicate-notebook.dto';
 import { freezeNotebook } from './freeze-notebook';
 import { lockRecordMarkdown } from './lock-markdown';
+import { upgradeLockRecord } from './lock-record-upgrade';
 
 export interface LockFile {
   fileName: string;
@@ -67,9 +69,12 @@ export class LocksService {
   }
 
   async record(notebookId: string): Promise<LockRecord> {
-    const rows: Array<{ record: LockRecord }> = await this.db.query(`SELECT record FROM notebook_locks WHERE notebook_id = $1`, [notebookId]);
+    const rows: Array<{ record: Parameters<typeof upgradeLockRecord>[0] }> = await this.db.query(
+      `SELECT record FROM notebook_locks WHERE notebook_id = $1`,
+      [notebookId],
+    );
     if (!rows.length) throw new NotFoundException('This notebook is not locked');
-    return rows[0].record;
+    return upgradeLockRecord(rows[0].record);
   }
 
   async export(actor: Actor, notebookId: string, format: LockExportFormat): Promise<LockFile> {
@@ -77,7 +82,8 @@ export class LocksService {
     await this.audit.record(actor.id, `export.lock_${format}`, notebookId, {});
     const base = `lock-record-${notebookId.slice(0, 8)}`;
     if (format === 'json') {
-      return { fileName: `${base}.json`, mediaType: 'application/json; charset=utf-8', body: `${JSON.stringify(record, null, 2)}\n` };
+      // The canonical form itself (docs/records.md): what recordSha256 is computed over, plus that field.
+      return { fileName: `${base}.json`, mediaType: 'application/json; charset=utf-8', body: `${canonicalJson(record)}\n` };
     }
     return { fileName: `${base}.md`, mediaType: 'text/markdown; charset=utf-8', body: lockRecordMarkdown(record, this.cfg.publicUrl) };
   }
@@ -119,8 +125,8 @@ export class LocksService {
       const cells = await loadDigestCells(m, notebookId);
       for (const c of cells) {
         const [{ id: cellId }] = await m.query(
-          `INSERT INTO cells (notebook_id, kind, source, position, author_id)
-           SELECT $1, kind, source, position, author_id FROM cells WHERE id = $2 RETURNING id`,
+          `INSERT INTO cells (notebook_id, kind, source, position, author_id, title)
+           SELECT $1, kind, source, position, author_id, title FROM cells WHERE id = $2 RETURNING id`,
           [id, c.id],
         );
         if (c.runId) {

@@ -1,6 +1,7 @@
-import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Query, UseGuards } from '@nestjs/common';
-import { ApiCookieAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
-import type { NotebookSummary, NotebookView, Page } from '@cribra/contracts';
+import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Query, UploadedFile, UseGuards, UseInterceptors } from '@nestjs/common';
+import { FileInterceptor } from '@nestjs/platform-express';
+import { ApiBody, ApiConsumes, ApiCookieAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
+import { UPLOAD_MAX_BYTES, type NotebookSummary, type NotebookView, type Page } from '@cribra/contracts';
 import { CurrentUser, SignedInGuard } from '../common';
 import type { UserEntity } from '../users/user.entity';
 import { NotebookPolicyService } from '../members/notebook-policy.service';
@@ -8,6 +9,7 @@ import { CreateNotebookDto } from './dto/create-notebook.dto';
 import { ListNotebooksDto } from './dto/list-notebooks.dto';
 import { UpdateNotebookDto } from './dto/update-notebook.dto';
 import { NotebooksService } from './notebooks.service';
+import type { IncomingFile } from '../uploads/uploads.service';
 
 @ApiTags('notebooks')
 @ApiCookieAuth()
@@ -29,6 +31,16 @@ export class NotebooksController {
   @ApiOperation({ summary: 'Create a notebook (you become its owner)' })
   create(@CurrentUser() user: UserEntity, @Body() body: CreateNotebookDto): Promise<NotebookView> {
     return this.notebooks.create(user, body);
+  }
+
+  @Post('import')
+  @ApiOperation({ summary: 'New notebook from a .sift notebook file (400 with the lines of its problems; nothing stored then)' })
+  @ApiConsumes('multipart/form-data')
+  @ApiBody({ schema: { type: 'object', required: ['file'], properties: { file: { type: 'string', format: 'binary' } } } })
+  // The limits of uploads: memory storage, one file of at most UPLOAD_MAX_BYTES (413 above).
+  @UseInterceptors(FileInterceptor('file', { limits: { fileSize: UPLOAD_MAX_BYTES, files: 1, fields: 2 } }))
+  importFile(@CurrentUser() user: UserEntity, @UploadedFile() file: IncomingFile | undefined): Promise<NotebookView> {
+    return this.notebooks.importFile(user, file);
   }
 
   @Get(':id')

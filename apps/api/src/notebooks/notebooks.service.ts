@@ -1,4 +1,4 @@
-import { ConflictException, Injectable, NotFoundException } from '@nestjs/common';
+import { BadRequestException, ConflictException, Injectable, NotFoundException } from '@nestjs/common';
 import { InjectDataSource } from '@nestjs/typeorm';
 import { DataSource } from 'typeorm';
 import type {
@@ -15,6 +15,8 @@ import type { Actor } from '../members/notebook-policy.service';
 import { CreateNotebookDto } from './dto/create-notebook.dto';
 import { ListNotebooksDto } from './dto/list-notebooks.dto';
 import { UpdateNotebookDto } from './dto/update-notebook.dto';
+import { readNotebookUpload } from './notebook-import';
+import type { IncomingFile } from '../uploads/uploads.service';
 
 interface SummaryRow {
   id: string;
@@ -124,6 +126,36 @@ export class NotebooksService {
         actor.id,
       ]);
       await this.audit.record(actor.id, 'notebook.create', id, { title: body.title }, m);
+      return id as string;
+    });
+    return this.view(actor, id);
+  }
+
+  /**
+   * A new notebook owned by `actor` from a `.sift` notebook file: title, summary and tags from its
+   * header, its cells with kinds and titles (no runs: outputs are computed by running it). Every
+   * problem of the file is refused with its line before anything is written; the rows are then
+   * written in one transaction.
+   */
+  async importFile(actor: Actor, file: IncomingFile | undefined): Promise<NotebookView> {
+    const read = readNotebookUpload(file);
+    if (!read.ok) throw new BadRequestException({ message: read.message, details: read.details });
+    const nb = read.notebook;
+    const id = await this.db.transaction(async (m) => {
+      const [{ id }] = await m.query(
+        `INSERT INTO notebooks (title, summary, tags, owner_id, required_signoffs, revision) VALUES ($1, $2, $3, $4, 1, $5) RETURNING id`,
+        [nb.title, nb.summary, nb.tags, actor.id, 1 + nb.cells.length],
+      );
+      await m.query(`INSERT INTO notebook_members (notebook_id, user_id, role, added_by) VALUES ($1, $2, 'owner', $2)`, [id, actor.id]);
+      if (nb.cells.length) {
+        await m.query(
+          `INSERT INTO cells (notebook_id, kind, title, source, position, author_id)
+           SELECT $1, c.kind, c.title, c.source, c.pos - 1, $2
+             FROM unnest($3::varchar[], $4::varchar[], $5::text[]) WITH ORDINALITY AS c(kind, title, source, pos)`,
+          [id, actor.id, nb.cells.map((c) => c.kind), nb.cells.map((c) => c.title), nb.cells.map((c) => c.source)],
+        );
+      }
+      await this.audit.record(actor.id, 'notebook.create', id, { title: nb.title, importedFrom: file?.originalname.slice(0, 255), cells: nb.cells.length }, m);
       return id as string;
     });
     return this.view(actor, id);

@@ -16,7 +16,7 @@ export interface IncomingFile {
 }
 
 /** Media types browsers and tools send for plain text and CSV. */
-const TEXT_TYPES = new Set(['text/plain', 'text/csv', 'application/csv', 'application/vnd.ms-excel', 'application/octet-stream', 'text/x-csv']);
+export const TEXT_TYPES = new Set(['text/plain', 'text/csv', 'application/csv', 'application/vnd.ms-excel', 'application/octet-stream', 'text/x-csv']);
 
 interface UploadRow {
   id: string;

@@ -21,6 +21,17 @@ const siftRunCommand: Command = {
   },
 };
 
+const verifyRecordCommand: Command = {
+  name: 'verify',
+  summary: 'check a lock record offline: its hash, then every query and claim cell re-run; exit 1 when one differs',
+  usage: 'cribra verify RECORD.json|URL [--json] [--workers N] [--timeout SECONDS]',
+  run: async (argv, io) => {
+    // eslint-disable-next-line @typescript-eslint/no-require-imports -- deliberate lazy CommonJS load
+    const { verifyCommand } = require('./verify') as typeof import('./verify');
+    return verifyCommand([...argv], io.out, io.err);
+  },
+};
+
 export const COMMANDS: readonly Command[] = [
   admissibleCommand,
   wheelCommand,
@@ -31,4 +42,5 @@ export const COMMANDS: readonly Command[] = [
   narrowestCommand,
   maxgapsCommand,
   siftRunCommand,
+  verifyRecordCommand,
 ];

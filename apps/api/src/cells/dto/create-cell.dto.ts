@@ -1,6 +1,6 @@
 import { ApiProperty, ApiPropertyOptional } from '@nestjs/swagger';
-import { IsIn, IsInt, IsOptional, IsString, MaxLength, Min } from 'class-validator';
-import { CELL_KINDS, CELL_SOURCE_MAX, type CellKind, type CreateCellBody } from '@cribra/contracts';
+import { IsIn, IsInt, IsOptional, IsString, Matches, MaxLength, Min } from 'class-validator';
+import { CELL_KINDS, CELL_SOURCE_MAX, CELL_TITLE_MAX, type CellKind, type CreateCellBody } from '@cribra/contracts';
 
 export class CreateCellDto implements CreateCellBody {
   @ApiProperty({ enum: CELL_KINDS })
@@ -17,4 +17,11 @@ export class CreateCellDto implements CreateCellBody {
   @IsInt()
   @Min(0)
   position?: number;
+
+  @ApiPropertyOptional({ maxLength: CELL_TITLE_MAX, nullable: true, description: 'One line; null or blank: no title' })
+  @IsOptional()
+  @IsString()
+  @MaxLength(CELL_TITLE_MAX, { message: `title must be at most ${CELL_TITLE_MAX} characters` })
+  @Matches(/^[^\r\n]*$/, { message: 'title must be one line' })
+  title?: string | null;
 }

@@ -3,7 +3,7 @@ import { IsIn } from 'class-validator';
 import type { NotebookExportFormat } from '@cribra/contracts';
 
 export class NotebookFormatDto {
-  @ApiProperty({ enum: ['markdown', 'latex'] })
-  @IsIn(['markdown', 'latex'], { message: 'format must be markdown or latex' })
+  @ApiProperty({ enum: ['markdown', 'latex', 'sift'] })
+  @IsIn(['markdown', 'latex', 'sift'], { message: 'format must be markdown, latex or sift' })
   format!: NotebookExportFormat;
 }

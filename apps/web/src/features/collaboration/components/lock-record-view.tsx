@@ -17,6 +17,9 @@ export function LockRecordView({ notebookId, canCheck = false }: { notebookId: s
       <Typography variant="body2">Locked by {r.lockedBy.displayName}, {formatDateTime(r.lockedAt)}, at revision {r.notebookRevision}.</Typography>
       <Typography className="mono" sx={{ fontSize: 11, wordBreak: 'break-all', my: 0.5 }}>{r.revisionDigest}</Typography>
       <Typography variant="body2" color="text.secondary">engine {r.engineVersion} · Sift {r.languageVersion} · {r.cells.length} cells</Typography>
+      <Typography variant="body2" color="text.secondary">
+        Record SHA-256 <span className="mono" style={{ wordBreak: 'break-all' }}>{r.recordSha256}</span> · check it offline with <code>cribra verify</code> on the JSON
+      </Typography>
       <List dense>
         {r.signers.map((s) => (
           <ListItem key={s.reviewId} disableGutters>

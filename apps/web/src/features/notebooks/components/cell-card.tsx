@@ -9,6 +9,7 @@ import { useCancelRun } from '../api/cancel-run';
 import { useRunCell } from '../api/run-cell';
 import { useCellDraft } from '../hooks/use-cell-draft';
 import { CellStatusLine } from './cell-status-line';
+import { CellTitle } from './cell-title';
 import { CellToolbar } from './cell-toolbar';
 import { RunHistory } from './run-history';
 import { RunOutputs } from './run-outputs';
@@ -47,11 +48,12 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
   const actionError = d.saveError ?? runCell.error ?? cancel.error;
 
   return (
-    <Paper component="section" aria-label={`Cell ${index + 1}, ${cell.kind}`} data-cell-id={cell.id} sx={{ p: 1.5 }}>
+    <Paper component="section" aria-label={`Cell ${index + 1}, ${cell.kind}${cell.title ? `: ${cell.title}` : ''}`} data-cell-id={cell.id} sx={{ p: 1.5 }}>
       <Box sx={{ display: 'flex', alignItems: 'center', gap: 1, mb: 1 }}>
         <Typography sx={{ fontFamily: monoFont, color: 'text.secondary', minWidth: 24 }}>{index + 1}</Typography>
         <Chip size="small" label={KIND_LABEL[cell.kind]} variant={cell.kind === 'claim' ? 'filled' : 'outlined'}
           sx={{ fontWeight: 600, letterSpacing: '0.08em', borderRadius: 1 }} />
+        <CellTitle key={`${cell.id}-${cell.title ?? ''}`} cell={cell} index={index} canEdit={canEdit} />
         <Box sx={{ flex: 1 }} />
         {cell.kind === 'note' && canEdit && (
           <Button onClick={() => (editingNote ? void d.save().then((s) => s && setEditingNote(false)) : setEditingNote(true))}>

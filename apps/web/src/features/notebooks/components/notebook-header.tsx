@@ -28,6 +28,7 @@ export function NotebookHeader({ notebook: nb, canRun, runningAll, onRunAll, onE
         {onEditSettings && <Button variant="outlined" onClick={onEditSettings}>Settings</Button>}
         <Button variant="outlined" href={`/api/notebooks/${nb.id}/export?format=markdown`} download>Export Markdown</Button>
         <Button variant="outlined" href={`/api/notebooks/${nb.id}/export?format=latex`} download>Export LaTeX</Button>
+        <Button variant="outlined" href={`/api/notebooks/${nb.id}/export?format=sift`} download title="The cells as a notebook file, for cribra run or New notebook from file">Export .sift</Button>
         {actions}
       </Box>
       {nb.summary && <Typography sx={{ mt: 1, maxWidth: 900 }}>{nb.summary}</Typography>}

@@ -18,6 +18,7 @@ const cell = (revision: number, source: string, by = 'Ilse'): CellView => ({
   id: 'c1',
   notebookId: 'n1',
   kind: 'query',
+  title: null,
   source,
   position: 0,
   revision,

@@ -12,6 +12,7 @@ import { errorMessage } from '../../../lib/api-error';
 import { useDuplicateNotebook } from '../api/duplicate-notebook';
 import { useNotebooks } from '../api/list-notebooks';
 import { CreateNotebookDialog } from '../components/create-notebook-dialog';
+import { ImportNotebookButton } from '../components/import-notebook-button';
 import { type FilterValues, NotebookFilters } from '../components/notebook-filters';
 import { NotebooksTable } from '../components/notebooks-table';
 
@@ -53,7 +54,12 @@ export default function NotebooksPage() {
       <PageHeader
         title="Notebooks"
         subtitle="Query, claim and note cells over admissible tuples, wheels and prime gaps."
-        actions={<Button variant="contained" size="medium" onClick={() => setCreating(true)}>New notebook</Button>}
+        actions={
+          <>
+            <Button variant="contained" size="medium" onClick={() => setCreating(true)}>New notebook</Button>
+            <ImportNotebookButton onImported={(nb) => navigate(`/notebooks/${nb.id}`)} />
+          </>
+        }
       />
       <NotebookFilters values={values} onChange={change} />
       {duplicate.isError && <Alert severity="error" sx={{ mb: 2 }}>Could not duplicate: {errorMessage(duplicate.error)}</Alert>}
