@@ -33,7 +33,7 @@ function record(withdrawn: boolean): PublishedRecordView {
       cells: [{ id: 'c1', position: 0, kind: 'claim', sourceSha256: '34'.repeat(32), source: '', outputDigest: null, runId: null, engineVersion: null, languageVersion: null }],
       // A field this page has no section for is still shown.
       recordFormat: 'cribra-record-v2',
-    } as PublishedRecordView['record'],
+    } as unknown as PublishedRecordView['record'],
   };
 }
 
