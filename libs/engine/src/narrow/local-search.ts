@@ -171,7 +171,7 @@ export function localSearch(start: readonly number[], options: LocalSearchOption
     if ((step & 255) === 0) {
       checkStop(options.hooks, what);
       if (options.timeUp?.()) break;
-      options.hooks?.onProgress?.(step / steps, what);
+      if (steps < Number.MAX_SAFE_INTEGER) options.hooks?.onProgress?.(step / steps, what);
     }
     const j = rng.below(P + 1);
     if (j === P) {
