@@ -187,7 +187,7 @@ export function narrowSearch(
     const steps = options.steps !== undefined ? Math.ceil(options.steps / pieces.length) : undefined;
     const hooks = partHooks(options.hooks, 0.1 + (0.87 * piece.index) / pieces.length, 0.1 + (0.87 * (piece.index + 1)) / pieces.length);
     results.push(runSearchPiece(piece, { steps, timeUp, hooks, onBest: report, target: options.target, start: best.tuple }));
-    if (options.timeUp?.()) break;
+    if (options.timeUp?.() || (options.target !== undefined && best.diameter <= options.target)) break;
   }
   const sorted = [...results].sort((a, b) => a.diameter - b.diameter);
   best = sorted[0];
