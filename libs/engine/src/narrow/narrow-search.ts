@@ -1,6 +1,7 @@
 import { inputError } from '../errors';
 import { checkStop, partHooks, type WorkHooks } from '../sieve/progress';
-import { greedyGreedySieve } from './greedy-greedy';
+import { sieveInterval } from './interval-sieve';
+import { narrowestWindow } from './narrowest-window';
 import { CONSTRUCT_MAX_K } from './limits';
 import { localSearch } from './local-search';
 import { narrowAdmissibility } from './narrow-admissibility';
@@ -28,7 +29,7 @@ export interface SearchPiece {
 }
 
 /**
- * `count` pieces for k: piece 0 is the centred interval with bound ≈ √k; the others spread the
+ * `count` pieces for k: piece 0 has the shape of the published 34 429-tuple's interval; the others spread the
  * interval position over [−0.75, −0.25] and the bound over [0, 2.4·√k] (below 3: pure greedy) (a low-discrepancy
  * spread, so any prefix of the list covers the ranges evenly).
  */
@@ -38,10 +39,13 @@ export function searchPieces(k: number, count: number): SearchPiece[] {
   const pieces: SearchPiece[] = [];
   for (let i = 0; i < count; i++) {
     // Additive recurrences with the golden ratio and √2 (quasi-random points in the square).
-    const u = i === 0 ? 0.5 : (i * 0.6180339887) % 1;
-    const v = i === 0 ? 0.3 : (i * 0.4142135623) % 1;
+    const u = (i * 0.6180339887) % 1;
+    const v = (i * 0.4142135623) % 1;
     const b = Math.round(root * 2.4 * v);
-    pieces.push({ k, index: i, shift: -0.75 + 0.5 * u, bound: b < 3 ? 0 : b, seed: 1 + i * 7919 });
+    // Piece 0 copies the geometry of the Polymath8 34 429-tuple ([−185662, 202456], bound 137),
+    // scaled: the interval starts at −0.478 of its width and the bound is 0.74·√k.
+    if (i === 0) pieces.push({ k, index: 0, shift: -185662 / 388118, bound: Math.max(3, Math.round(root * 0.738)), seed: 1 });
+    else pieces.push({ k, index: i, shift: -0.75 + 0.5 * u, bound: b < 3 ? 0 : b, seed: 1 + i * 7919 });
   }
   return pieces;
 }
@@ -62,31 +66,32 @@ export interface SearchOptions {
 
 /**
  * Greedy-greedy seed of a piece: sieve [shift·W, shift·W + W] with its bound, W adjusted (at most
- * four sieves) until at least k survive, and keep the narrowest window of k survivors
- * (the best-interval scan).
+ * four sieves, two when `width` — e.g. a known diameter — is given) until at least k survive, and
+ * keep the narrowest window of k survivors (the best-interval scan). One sieve per width: the
+ * window is cut from that sieve's survivors.
  */
-export function pieceSeed(piece: SearchPiece, hooks?: WorkHooks): NarrowTuple {
+export function pieceSeed(piece: SearchPiece, hooks?: WorkHooks, widthHint?: number): NarrowTuple {
   const { k } = piece;
-  let width = Math.ceil(k * Math.log(k) * 1.12 + k);
+  let width = widthHint ?? Math.ceil(k * Math.log(k) * 1.12 + k);
   let best: NarrowTuple | null = null;
-  for (let i = 0; i < 6 && !(best && i >= 4); i++) {
+  const rounds = widthHint ? 2 : 4;
+  const sieve = (w: number): number => {
     checkStop(hooks, `sieving a seed interval for k = ${k}`);
-    const from = Math.round(piece.shift * width);
-    const all = greedyGreedySieve({ from, to: from + width, fixedBound: piece.bound });
-    if (all.k >= k) {
-      const cut = greedyGreedySieve({ from, to: from + width, fixedBound: piece.bound, k });
-      if (!best || cut.diameter < best.diameter) best = cut;
-    }
-    // Aim a little above k survivors: the surplus gives the window scan a choice.
-    width = Math.max(2 * k, Math.ceil((width * k * 1.01) / Math.max(1, all.k)) + 4);
-  }
-  for (let grow = 1.15; !best; grow *= 1.15) {
-    const w = Math.ceil(width * grow);
     const from = Math.round(piece.shift * w);
-    const all = greedyGreedySieve({ from, to: from + w, fixedBound: piece.bound });
-    if (all.k >= k) best = greedyGreedySieve({ from, to: from + w, fixedBound: piece.bound, k });
+    const { survivors } = sieveInterval({ from, to: from + w, fixedBound: piece.bound });
+    if (survivors.length >= k) {
+      const { start, diameter } = narrowestWindow(survivors, k);
+      if (!best || diameter < best.diameter) best = narrowResult(survivors.slice(start, start + k), piece.bound > 2 ? 'greedy-greedy' : 'greedy');
+    }
+    return survivors.length;
+  };
+  for (let i = 0; i < rounds + 2 && !(best && i >= rounds); i++) {
+    const n = sieve(width);
+    // Aim a little above k survivors: the surplus gives the window scan a choice.
+    width = Math.max(2 * k, Math.ceil((width * k * 1.01) / Math.max(1, n)) + 4);
   }
-  return best;
+  for (let grow = 1.15; !best; grow *= 1.15) sieve(Math.ceil(width * grow));
+  return best as unknown as NarrowTuple;
 }
 
 /**
@@ -94,8 +99,9 @@ export function pieceSeed(piece: SearchPiece, hooks?: WorkHooks): NarrowTuple {
  * narrower), then {@link localSearch} with the piece's random seed.
  */
 export function runSearchPiece(piece: SearchPiece, options: SearchOptions & { readonly start?: readonly number[] } = {}): NarrowTuple {
+  const hint = options.start && options.start.length === piece.k ? spread(options.start) : undefined;
   checkK(piece.k);
-  let seed = piece.k <= 2 ? narrowResult(piece.k === 1 ? [0] : [0, 2], 'greedy') : pieceSeed(piece, options.hooks);
+  let seed = piece.k <= 2 ? narrowResult(piece.k === 1 ? [0] : [0, 2], 'greedy') : pieceSeed(piece, options.hooks, hint);
   if (options.start && options.start.length === piece.k) {
     const s = narrowResult([...options.start].sort((a, b) => a - b), 'local-search');
     if (s.diameter <= seed.diameter) seed = s;
@@ -206,6 +212,17 @@ export function narrowSearch(
  */
 export function searchStepsFor(k: number, seconds: number): number {
   return Math.max(1000, Math.round((seconds * 6e7) / (k + 100)));
+}
+
+/** Largest minus smallest element. */
+function spread(xs: readonly number[]): number {
+  let lo = Infinity;
+  let hi = -Infinity;
+  for (const x of xs) {
+    if (x < lo) lo = x;
+    if (x > hi) hi = x;
+  }
+  return hi - lo;
 }
 
 function checkK(k: number): void {

@@ -1,8 +1,10 @@
 import type { EngineErrorKind } from '../errors';
-import type { SearchPiece } from '../narrow';
+import type { NarrowMethod, SearchPiece } from '../narrow';
 
-/** Work for one narrow-search worker: its pieces, run one after the other until `deadline`. */
-export interface NarrowTask {
+/** Work for one narrow-search worker: its pieces, run one after the other until `deadline`; or the baseline narrowTuple(k). */
+export type NarrowTask = NarrowPiecesTask | { readonly baseline: number };
+
+export interface NarrowPiecesTask {
   readonly pieces: readonly SearchPiece[];
   /** Wall-clock end (Date.now() milliseconds; worker threads share that clock, not performance.now()). */
   readonly deadline: number;
@@ -13,5 +15,5 @@ export interface NarrowTask {
 /** A worker's reports: a narrower tuple while it runs, its final best, or the error it met. */
 export type NarrowTaskReply =
   | { readonly type: 'best'; readonly tuple: readonly number[] }
-  | { readonly type: 'done'; readonly tuple: readonly number[]; readonly pieces: number }
+  | { readonly type: 'done'; readonly tuple: readonly number[]; readonly pieces: number; readonly method?: NarrowMethod }
   | { readonly type: 'error'; readonly kind: EngineErrorKind; readonly message: string };

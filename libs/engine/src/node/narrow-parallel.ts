@@ -4,7 +4,7 @@ import { join } from 'node:path';
 import { Worker } from 'node:worker_threads';
 import { EngineError, inputError } from '../errors';
 import {
-  CONSTRUCT_MAX_K, mergeTuples, narrowResult, narrowTuple, searchPieces, type NarrowSearchResult, type NarrowTuple,
+  CONSTRUCT_MAX_K, EXACT_MAX_K, mergeTuples, narrowResult, narrowTuple, searchPieces, type NarrowSearchResult, type NarrowTuple,
 } from '../narrow';
 import type { NarrowTask, NarrowTaskReply } from './narrow-messages';
 
@@ -35,8 +35,8 @@ function pieceSeconds(k: number): number {
 }
 
 /**
- * {@link narrowSearch} on worker threads: narrowTuple(k) first (exact for k ≤ 100: returned at
- * once), then the pieces of {@link searchPieces} dealt round-robin to the workers, each worker
+ * {@link narrowSearch} on worker threads: for k ≤ 100 the exact narrowTuple(k) at once; above,
+ * narrowTuple(k) on a thread of its own (the answer waits for it) and the pieces of {@link searchPieces} dealt round-robin to the workers, each worker
  * running its pieces one after the other; at the end the two narrowest results are merged
  * ({@link mergeTuples}) in the calling thread during the last 5 % of the time. Never wider than
  * narrowTuple(k); an upper bound for H(k) unless `exact`.
@@ -49,59 +49,66 @@ export async function narrowSearchParallel(k: number, options: ParallelNarrowOpt
   const workers = options.workers ?? availableParallelism();
   if (!Number.isSafeInteger(workers) || workers < 1 || workers > 256) throw inputError(`worker count ${workers}: must be 1 … 256`);
   const t0 = Date.now();
-  const base = narrowTuple(k);
-  if (base.exact) return { ...base, baseline: base.diameter, pieces: 0 };
-  let best: NarrowTuple = base;
+  if (k <= EXACT_MAX_K) {
+    const exact = narrowTuple(k);
+    return { ...exact, baseline: exact.diameter, pieces: 0 };
+  }
+  let best: NarrowTuple | null = null;
+  let baseline: NarrowTuple | null = null;
   const offer = (t: NarrowTuple) => {
-    if (t.diameter < best.diameter) {
+    if (!best || t.diameter < best.diameter) {
       best = t;
       options.onBest?.(t);
     }
   };
-  options.onBest?.(base);
   const deadline = t0 + seconds * 950;
-  const left = Math.max(0, deadline - Date.now()) / 1000;
-  const count = options.pieces ?? Math.max(workers, Math.min(workers * 8, Math.floor((left * workers) / pieceSeconds(k))));
+  const count = options.pieces ?? Math.max(workers, Math.min(workers * 8, Math.floor((seconds * workers) / pieceSeconds(k))));
   const pieces = searchPieces(k, count);
   const threads: Worker[] = [];
   const finals: NarrowTuple[] = [];
   try {
     const file = workerFile();
     await new Promise<void>((resolve, reject) => {
-      let running = workers;
+      let running = 0;
       const abort = () => reject(new EngineError('limit', 'narrow search cancelled'));
       if (options.signal?.aborted) return abort();
       options.signal?.addEventListener('abort', abort, { once: true });
-      for (let w = 0; w < workers; w++) {
-        const mine = pieces.filter((p) => p.index % workers === w);
-        if (mine.length === 0) {
-          running--;
-          continue;
-        }
+      const start = (task: NarrowTask, isBaseline: boolean) => {
         const worker = new Worker(file);
         threads.push(worker);
+        running++;
         worker.on('message', (m: NarrowTaskReply) => {
           if (m.type === 'error') return reject(new EngineError(m.kind, m.message));
-          const t = narrowResult([...m.tuple], 'local-search');
-          offer(t);
+          const t = narrowResult([...m.tuple], isBaseline ? 'greedy-greedy' : 'local-search');
+          if (isBaseline) baseline = { ...t, method: m.type === 'done' && m.method ? m.method : t.method };
+          else offer(t);
           if (m.type === 'done') {
-            finals.push(t);
+            if (!isBaseline) finals.push(t);
             if (--running === 0) resolve();
           }
         });
         worker.on('error', reject);
-        const task: NarrowTask = { pieces: mine, deadline, start: base.tuple };
         worker.postMessage(task);
+      };
+      // narrowTuple(k), the baseline the answer must not lose, on a thread of its own (seconds of
+      // work at large k) while the pieces search from their own seeds.
+      start({ baseline: k }, true);
+      for (let w = 0; w < workers; w++) {
+        const mine = pieces.filter((p) => p.index % workers === w);
+        if (mine.length) start({ pieces: mine, deadline }, false);
       }
-      if (running === 0) resolve();
     });
   } finally {
     await Promise.all(threads.map((t) => t.terminate()));
   }
+  const base = baseline as NarrowTuple | null;
+  if (!base) throw new EngineError('limit', 'narrow search: the baseline construction did not finish');
+  offer(base);
   const ranked = [...finals].sort((a, b) => a.diameter - b.diameter);
   if (ranked.length >= 2 && ranked[1].tuple !== ranked[0].tuple) {
     const end = t0 + seconds * 1000;
-    offer(mergeTuples(best.tuple, ranked[1].tuple, { timeUp: () => Date.now() >= end, steps: Number.MAX_SAFE_INTEGER, seed: 17 }));
+    offer(mergeTuples((best as unknown as NarrowTuple).tuple, ranked[1].tuple, { timeUp: () => Date.now() >= end, steps: Number.MAX_SAFE_INTEGER, seed: 17 }));
   }
-  return { ...best, exact: false, baseline: base.diameter, pieces: pieces.length };
+  const answer = best as unknown as NarrowTuple;
+  return { ...answer, exact: false, baseline: base.diameter, pieces: pieces.length };
 }

@@ -2,7 +2,7 @@
 // every narrower tuple (at most twice a second) and its final best.
 import { parentPort } from 'node:worker_threads';
 import { EngineError } from '../errors';
-import { runSearchPiece, type NarrowTuple } from '../narrow';
+import { narrowTuple, runSearchPiece, type NarrowTuple } from '../narrow';
 import type { NarrowTask, NarrowTaskReply } from './narrow-messages';
 
 const REPORT_EVERY_MS = 500;
@@ -10,6 +10,11 @@ const REPORT_EVERY_MS = 500;
 parentPort?.on('message', (task: NarrowTask) => {
   const post = (reply: NarrowTaskReply) => parentPort!.postMessage(reply);
   try {
+    if ('baseline' in task) {
+      const base = narrowTuple(task.baseline);
+      post({ type: 'done', tuple: base.tuple, pieces: 0, method: base.method });
+      return;
+    }
     let best: NarrowTuple | null = null;
     let lastReport = 0;
     let start = task.start;
@@ -34,8 +39,10 @@ parentPort?.on('message', (task: NarrowTask) => {
       if (!best || found.diameter < best.diameter) best = found;
       start = best.tuple;
     });
-    if (!best) throw new EngineError('limit', 'narrow search: no piece ran before the deadline');
-    post({ type: 'done', tuple: (best as NarrowTuple).tuple, pieces: n });
+    // The deadline may have passed before the first piece (a budget shorter than the baseline).
+    const final = best ? (best as NarrowTuple).tuple : task.start;
+    if (!final) throw new EngineError('limit', 'narrow search: no piece ran before the deadline');
+    post({ type: 'done', tuple: final, pieces: n });
   } catch (e) {
     post({ type: 'error', kind: e instanceof EngineError ? e.kind : 'limit', message: e instanceof Error ? e.message : String(e) });
   }
