@@ -30,6 +30,8 @@ export interface LocalSearchOptions {
   readonly neutral?: number;
   /** Probability of accepting a neutral move that lowers the number of indices covered once (default 0.1). */
   readonly onceWorse?: number;
+  /** Share of moves that free an integer covered by two primes by moving both (default 0.05 for k ≤ 5 000, else 0). */
+  readonly pairRate?: number;
   /** Restarts change up to this many random classes (default 4). */
   readonly kicks?: number;
   /** Moves without a narrower tuple before a restart from the best state (default max(20 000, 40·π(k))). */
@@ -161,31 +163,9 @@ export function localSearch(start: readonly number[], options: LocalSearchOption
     shrink();
   }
 
-  let sinceBest = 0;
-  const patience = options.patience ?? Math.max(20_000, 40 * P);
-  const temperature = options.temperature ?? TEMPERATURE;
-  const neutral = options.neutral ?? NEUTRAL;
-  const onceWorse = options.onceWorse ?? 0.1;
-  const kicks = options.kicks ?? 4;
-  for (let step = 0; step < steps && bestD > target; step++) {
-    if ((step & 255) === 0) {
-      checkStop(options.hooks, what);
-      if (options.timeUp?.()) break;
-      if (steps < Number.MAX_SAFE_INTEGER) options.hooks?.onProgress?.(step / steps, what);
-    }
-    const j = rng.below(P + 1);
-    if (j === P) {
-      // Slide the window by one place (a shifted interval against the same classes).
-      const dir = rng.next() < 0.5 ? 1 : -1;
-      const delta = state.slideGain(dir);
-      if (delta > 0 || (delta === 0 && rng.next() < neutral) || (delta < 0 && rng.next() < Math.exp(delta / temperature))) {
-        state.slide(dir);
-        if (state.count >= k) harvest();
-      }
-      continue;
-    }
+  // The other class of prime j that holds the fewest survivors of the window, and that number.
+  const bestClass = (j: number): [number, number] => {
     const q = primes[j];
-    const g = state.gain(j);
     const own = state.offsets[j];
     let c = -1;
     let loss = Infinity;
@@ -214,6 +194,76 @@ export function localSearch(start: readonly number[], options: LocalSearchOption
         }
       }
     }
+    return [c, loss];
+  };
+
+  // Re-insert an interior integer covered by exactly two primes: move both to their best other
+  // classes, and undo both unless the survivor count passes the acceptance rule.
+  const pairMove = (): void => {
+    let i = -1;
+    for (let t = 0; t < 8 && i < 0; t++) {
+      const x = state.lo + rng.below(state.width);
+      if (state.cover[x] === 2) i = x;
+    }
+    if (i < 0) return;
+    let j1 = -1;
+    let j2 = -1;
+    for (let jj = 0; jj < P; jj++) {
+      if ((i - state.offsets[jj]) % primes[jj] !== 0) continue;
+      if (j1 < 0) j1 = jj;
+      else {
+        j2 = jj;
+        break;
+      }
+    }
+    if (j2 < 0) return;
+    const before = state.count;
+    const o1 = state.offsets[j1];
+    const o2 = state.offsets[j2];
+    const [c1] = bestClass(j1);
+    if (c1 >= 0) state.move(j1, c1);
+    const [c2] = bestClass(j2);
+    if (c2 >= 0) state.move(j2, c2);
+    const delta = state.count - before;
+    if (delta > 0 || (delta === 0 && rng.next() < neutral) || (delta < 0 && rng.next() < Math.exp(delta / temperature))) {
+      if (state.count >= k) harvest();
+    } else {
+      state.move(j2, o2);
+      state.move(j1, o1);
+    }
+  };
+
+  let sinceBest = 0;
+  const patience = options.patience ?? Math.max(20_000, 40 * P);
+  const temperature = options.temperature ?? TEMPERATURE;
+  const neutral = options.neutral ?? NEUTRAL;
+  const onceWorse = options.onceWorse ?? 0.1;
+  const kicks = options.kicks ?? 4;
+  // The pair move scans all primes for the two covering ones: worth it for small k only (measured at 632).
+  const pairRate = options.pairRate ?? (k <= 5000 ? 0.05 : 0);
+  for (let step = 0; step < steps && bestD > target; step++) {
+    if ((step & 255) === 0) {
+      checkStop(options.hooks, what);
+      if (options.timeUp?.()) break;
+      if (steps < Number.MAX_SAFE_INTEGER) options.hooks?.onProgress?.(step / steps, what);
+    }
+    const j = rng.below(P + 1);
+    if (j === P) {
+      // Slide the window by one place (a shifted interval against the same classes).
+      const dir = rng.next() < 0.5 ? 1 : -1;
+      const delta = state.slideGain(dir);
+      if (delta > 0 || (delta === 0 && rng.next() < neutral) || (delta < 0 && rng.next() < Math.exp(delta / temperature))) {
+        state.slide(dir);
+        if (state.count >= k) harvest();
+      }
+      continue;
+    }
+    if (pairRate > 0 && rng.next() < pairRate) {
+      pairMove();
+      continue;
+    }
+    const g = state.gain(j);
+    const [c, loss] = bestClass(j);
     if (c < 0) continue;
     const delta = g - loss;
     let take = delta > 0;
