@@ -91,6 +91,10 @@ export function pieceSeed(piece: SearchPiece, hooks?: WorkHooks, widthHint?: num
     width = Math.max(2 * k, Math.ceil((width * k * 1.01) / Math.max(1, n)) + 4);
   }
   for (let grow = 1.15; !best; grow *= 1.15) sieve(Math.ceil(width * grow));
+  // Survivor counts jump with the width, so the secant steps can settle on a poor width; an
+  // interval as wide as the best tuple found so far does better (measured at k = 34 429:
+  // 388 620 → 388 116). Two such rounds.
+  for (let i = 0; i < 2; i++) sieve((best as unknown as NarrowTuple).diameter);
   return best as unknown as NarrowTuple;
 }
 
