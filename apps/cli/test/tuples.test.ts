@@ -80,6 +80,23 @@ describe('cribra narrowest', () => {
   it.each([['0'], ['1.5e3'], ['-3'], ['abc'], ['10^9']])('rejects --k %s', (k) => {
     expectUsageError(cribra('narrowest', '--k', k), /--k/);
   });
+  it('--search on 2 workers: the old fields, the new ones, never wider than without search, admissible', () => {
+    const plain = cribraJson('narrowest', '--k', '300');
+    const r = cribraJson('narrowest', '--k', '300', '--search', '3', '--workers', '2');
+    expect(Object.keys(r)).toEqual(expect.arrayContaining(['k', 'diameter', 'tuple', 'exact', 'method', 'witness']));
+    expect(r).toMatchObject({ k: 300, exact: false, baseline: plain.diameter, searchSeconds: 3, workers: 2 });
+    expect(r.pieces as number).toBeGreaterThanOrEqual(2);
+    expect(r.diameter as number).toBeLessThanOrEqual(plain.diameter as number);
+    const tuple = r.tuple as number[];
+    expect(tuple).toHaveLength(300);
+    expect(cribraJson('admissible', '--tuple', tuple.join(','))).toMatchObject({ admissible: true, diameter: r.diameter });
+  });
+  it('--search below k = 101 is the exact value at once', () => {
+    expect(cribraJson('narrowest', '--k', '20', '--search', '5')).toMatchObject({ diameter: 80, exact: true, pieces: 0 });
+  });
+  it.each([['0'], ['x'], ['90000']])('rejects --search %s', (s) => {
+    expectUsageError(cribra('narrowest', '--k', '300', '--search', s), /--search/);
+  });
 });
 
 describe('cribra constant', () => {

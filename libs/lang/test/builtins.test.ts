@@ -167,6 +167,14 @@ const cases: Record<string, () => void> = {
     expect(value('[narrowest(k).diameter : k ∈ 1..10]')).toBe('[0, 2, 6, 8, 12, 16, 20, 26, 30, 32]'); // OEIS A008407
     expect(value('narrowest(12).tuple')).toBe(`{${narrowTuple(12).tuple.join(', ')}}`);
   },
+  narrowsearch: () => {
+    expect(value('narrowsearch(20, 1).diameter')).toBe('80'); // H(20) = 80 (OEIS A008407): exact below k = 101
+    // Above k = 100: never wider than narrowest(k), admissible, and the same tuple on a second run.
+    const r = value('let s = narrowsearch(150, 1)\n[s.k, s.exact, s.diameter ≤ s.baseline, s.baseline = narrowest(150).diameter, admissible(s.tuple)]');
+    expect(r).toBe('[150, false, true, true, true]');
+    expect(value('narrowsearch(150, 1).tuple')).toBe(value('narrowsearch(150, 1).tuple'));
+    expect(failure('narrowsearch(150, 0)').kind).toBe('domain');
+  },
   construct: () => {
     for (const m of ['hensley-richards', 'schinzel', 'greedy-greedy']) {
       expect(value(`let t = construct(40, "${m}")\n[t.k, admissible(t.tuple), size(t.tuple), t.diameter ≥ 160]`)).toBe('[40, true, 40, true]'); // H(40) = 176 (OEIS A008407, from memory)

@@ -1,6 +1,6 @@
 // `npm run bench [-- FILTER]`: runs the benchmark areas and prints one table of figures.
 // Each area module exports one async function returning rows { name, figure } and prints nothing.
-import { benchNarrow } from './narrow.bench';
+import { benchNarrow, benchNarrowSearch } from './narrow.bench';
 import { benchSieve } from './sieve.bench';
 import { benchWheel } from './wheel.bench';
 
@@ -9,14 +9,16 @@ export interface BenchRow {
   readonly figure: string;
 }
 
-const AREAS: ReadonlyArray<{ area: string; run: () => Promise<readonly BenchRow[]> }> = [
+const AREAS: ReadonlyArray<{ area: string; run: () => Promise<readonly BenchRow[]>; onlyByName?: boolean }> = [
   { area: 'wheel', run: benchWheel },
   { area: 'sieve', run: benchSieve },
   { area: 'narrow', run: benchNarrow },
+  // Long (minutes): run it alone with `npm run bench -- narrowsearch`.
+  { area: 'narrowsearch', run: benchNarrowSearch, onlyByName: true },
 ];
 
 async function bench(filter: string | undefined): Promise<number> {
-  const chosen = AREAS.filter((a) => !filter || a.area.includes(filter.toLowerCase()));
+  const chosen = AREAS.filter((a) => (a.onlyByName ? filter?.toLowerCase() === a.area : !filter || a.area.includes(filter.toLowerCase())));
   if (chosen.length === 0) {
     process.stderr.write(`bench: no area matches "${filter}" (areas: ${AREAS.map((a) => a.area).join(', ')})\n`);
     return 2;

@@ -10,3 +10,7 @@ export * from './hensley-richards';
 export * from './schinzel-sieve';
 export * from './improve-tuple';
 export * from './narrow-tuple';
+export * from './random';
+export * from './sieve-state';
+export * from './local-search';
+export * from './narrow-search';

@@ -11,7 +11,8 @@ export type NarrowMethod =
   | 'greedy'
   | 'schinzel'
   | 'hensley-richards'
-  | 'improved';
+  | 'improved'
+  | 'local-search';
 
 /**
  * An admissible k-tuple with its diameter and its admissibility witness.
