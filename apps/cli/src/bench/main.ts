@@ -2,6 +2,7 @@
 // Each area module exports one async function returning rows { name, figure } and prints nothing.
 import { benchNarrow } from './narrow.bench';
 import { benchSieve } from './sieve.bench';
+import { benchSieveProcess } from './sieve-process.bench';
 import { benchWheel } from './wheel.bench';
 
 export interface BenchRow {
@@ -12,11 +13,14 @@ export interface BenchRow {
 const AREAS: ReadonlyArray<{ area: string; run: () => Promise<readonly BenchRow[]> }> = [
   { area: 'wheel', run: benchWheel },
   { area: 'sieve', run: benchSieve },
+  { area: 'sieve-process', run: benchSieveProcess },
   { area: 'narrow', run: benchNarrow },
 ];
 
 async function bench(filter: string | undefined): Promise<number> {
-  const chosen = AREAS.filter((a) => !filter || a.area.includes(filter.toLowerCase()));
+  // An exact area name runs that area alone (`sieve` is also part of `sieve-process`); otherwise every area containing the word.
+  const exact = AREAS.filter((a) => a.area === filter?.toLowerCase());
+  const chosen = exact.length > 0 ? exact : AREAS.filter((a) => !filter || a.area.includes(filter.toLowerCase()));
   if (chosen.length === 0) {
     process.stderr.write(`bench: no area matches "${filter}" (areas: ${AREAS.map((a) => a.area).join(', ')})\n`);
     return 2;

@@ -62,6 +62,8 @@ const A_WORDS = extend(A);
 const B_WORDS = extend(B);
 const C_WORDS = extend(C);
 const D_WORDS = extend(D);
+/** The four patterns of 7 … 47 (for the WebAssembly kernel, which copies them into its memory). */
+export const WORD_PATTERNS: readonly WordPattern[] = [A, B, C, D];
 /** The largest prime removed by a pattern (crossing off starts after it). */
 export const LAST_PATTERN_PRIME = 47;
 /** The primes the patterns remove together with their multiples (to be put back). */
