@@ -19,23 +19,24 @@ const CLASS_STEP: usize = 0x680000;
 const PRODUCT_RESIDUE: usize = 0x680400;
 const PRODUCT_MASK: usize = 0x680800;
 const BIT_VALUE: usize = 0x680900;
-/** The four word patterns of 7 … 47, each extended past its period (u32). */
+/** The word patterns (u32), each extended past its period. */
 const TABLES: usize = 0x690000;
+const TABLES_END: usize = 0x800000;
 /** Gap histogram (f64 × HIST_SIZE). */
-const HIST: usize = 0x700000;
+const HIST: usize = 0x800000;
 const HIST_SIZE: i32 = 4096;
 /** Record gaps: (gap: i32, pad, after: f64) × MAX_RECORDS. */
-const RECORDS: usize = 0x708000;
+const RECORDS: usize = 0x808000;
 const MAX_RECORDS: i32 = 4096;
 /** Compiled pattern descriptors (i32 words; see countPattern). */
-const PATTERN: usize = 0x720000;
-const PATTERN_END: usize = 0x740000;
+const PATTERN: usize = 0x820000;
+const PATTERN_END: usize = 0x840000;
 /** Crossing primes the layout holds (π(2^20) − 15 = 82 010 are needed). */
 const MAX_PRIMES: i32 = 0x20000;
 /** Words written per presieve chunk; the tables are extended this much (+ 4) past their period. */
-const CHUNK: i32 = 4096;
+const CHUNK: i32 = 1024;
 
-/** Addresses of the layout for the driver (k = 0 … 12), so that both sides agree. */
+/** Addresses and sizes of the layout for the driver (k = 0 … 18), so that both sides agree. */
 export function layout(k: i32): i32 {
   switch (k) {
     case 0: return <i32>SEG;
@@ -55,51 +56,68 @@ export function layout(k: i32): i32 {
     case 14: return CHUNK;
     case 15: return HIST_SIZE;
     case 16: return MAX_RECORDS;
+    case 17: return <i32>TABLES_END;
+    case 18: return MAX_TABLES;
     default: return -1;
   }
 }
 
-// ---- word-pattern pre-sieve of 7 … 47 ----
-let tabA: usize = 0, tabB: usize = 0, tabC: usize = 0, tabD: usize = 0;
-let perA: i64 = 1, perB: i64 = 1, perC: i64 = 1, perD: i64 = 1;
-let invA: i64 = 0, invB: i64 = 0, invC: i64 = 0, invD: i64 = 0;
+// ---- word-pattern pre-sieve ----
+// Up to MAX_TABLES word patterns (tables of a few primes each, extended CHUNK + 4 words past their
+// period), described at TABLE_INFO: address, period, inverse of 4 modulo the period, current index.
+const TABLE_INFO: usize = 0x680A00;
+const MAX_TABLES: i32 = 16;
+let nTables: i32 = 0;
 
-/** Declares word pattern k (0 … 3): its table address, odd period and the inverse of 4 modulo it. */
+/** Declares word pattern k (0 … 15; a multiple of 4 of them in all): its table address, odd period and the inverse of 4 modulo it. */
 export function setPattern(k: i32, address: i32, period: i32, inverse4: i32): void {
-  const a = <usize>address;
-  const p = <i64>period;
-  const inv = <i64>inverse4;
-  if (k == 0) { tabA = a; perA = p; invA = inv; }
-  else if (k == 1) { tabB = a; perB = p; invB = inv; }
-  else if (k == 2) { tabC = a; perC = p; invC = inv; }
-  else { tabD = a; perD = p; invD = inv; }
+  const info = TABLE_INFO + (<usize>k << 4);
+  store<i32>(info, address);
+  store<i32>(info, period, 4);
+  store<i32>(info, inverse4, 8);
+  if (k >= nTables) nTables = k + 1;
+}
+
+// @ts-ignore: decorator
+@inline function tableAt(k: i32): usize {
+  const info = TABLE_INFO + (<usize>k << 4);
+  return <usize>load<i32>(info) + (<usize>load<i32>(info, 12) << 2);
 }
 
 /**
  * Writes the words [from, words) of the segment, which starts at sieve byte K0 (a safe integer),
- * with the integers coprime to 2 · 3 · … · 47: the AND of the four tables, 16 bytes at a time.
+ * with the integers coprime to 2 · 3 · 5 and to every prime of the tables: the AND of the tables,
+ * 16 bytes at a time, four tables per pass over a chunk (the chunk stays in the L1 cache).
  */
 export function presieve(from: i32, words: i32, K0: f64): void {
   const K = <i64>K0 + 4 * <i64>from;
-  let ta = <i32>(((K % perA) * invA) % perA);
-  let tb = <i32>(((K % perB) * invB) % perB);
-  let tc = <i32>(((K % perC) * invC) % perC);
-  let td = <i32>(((K % perD) * invD) % perD);
-  const pa = <i32>perA, pb = <i32>perB, pc = <i32>perC, pd = <i32>perD;
+  for (let k = 0; k < nTables; k++) {
+    const info = TABLE_INFO + (<usize>k << 4);
+    const per = <i64>load<i32>(info, 4);
+    store<i32>(info, <i32>(((K % per) * <i64>load<i32>(info, 8)) % per), 12);
+  }
   for (let c0 = from; c0 < words; c0 += CHUNK) {
     const n = min(CHUNK, words - c0);
     const dst = SEG + (<usize>c0 << 2);
-    const a = tabA + (<usize>ta << 2), b = tabB + (<usize>tb << 2);
-    const c = tabC + (<usize>tc << 2), d = tabD + (<usize>td << 2);
     // Whole groups of four words; the tables reach 4 words past a chunk, the segment has slack.
     const bytes = <usize>(n << 2);
-    for (let k: usize = 0; k < bytes; k += 16) {
-      v128.store(dst + k, v128.and(v128.and(v128.load(a + k), v128.load(b + k)), v128.and(v128.load(c + k), v128.load(d + k))));
+    for (let g = 0; g < nTables; g += 4) {
+      const a = tableAt(g), b = tableAt(g + 1), c = tableAt(g + 2), d = tableAt(g + 3);
+      if (g == 0) {
+        for (let k: usize = 0; k < bytes; k += 16) {
+          v128.store(dst + k, v128.and(v128.and(v128.load(a + k), v128.load(b + k)), v128.and(v128.load(c + k), v128.load(d + k))));
+        }
+      } else {
+        for (let k: usize = 0; k < bytes; k += 16) {
+          const v = v128.and(v128.and(v128.load(a + k), v128.load(b + k)), v128.and(v128.load(c + k), v128.load(d + k)));
+          v128.store(dst + k, v128.and(v128.load(dst + k), v));
+        }
+      }
     }
-    ta = (ta + n) % pa;
-    tb = (tb + n) % pb;
-    tc = (tc + n) % pc;
-    td = (td + n) % pd;
+    for (let k = 0; k < nTables; k++) {
+      const info = TABLE_INFO + (<usize>k << 4);
+      store<i32>(info, (load<i32>(info, 12) + n) % load<i32>(info, 4), 12);
+    }
   }
 }
 

@@ -6,7 +6,6 @@ import type { CoreResult } from './core';
 import { KERNEL_MAX_TO, type SieveKernel } from './kernel';
 import { L1_BYTES, LOOKAHEAD_BYTES, SEGMENT_BYTES, SMALL_PRIME_BOUND } from './layout';
 import type { CompiledPattern } from './pattern';
-import { LAST_PATTERN_PRIME, PATTERN_PRIMES, PATTERN_PRIMES_BYTES } from './presieve-words';
 import { checkStop, type WorkHooks } from './progress';
 import { RESIDUES, RESIDUE_BIT, WORD_BIT_VALUE } from './wheel30';
 
@@ -88,7 +87,7 @@ export function sieveCoreWasm(
   const totalBytes = Math.floor((b - base0) / 30) + 1;
 
   let firstSieving = 0;
-  while (firstSieving < sieving.length && sieving[firstSieving]! <= LAST_PATTERN_PRIME) firstSieving++;
+  while (firstSieving < sieving.length && sieving[firstSieving]! <= kernel.lastTablePrime) firstSieving++;
   let lastSieving = firstSieving;
   while (lastSieving < sieving.length && sieving[lastSieving]! * sieving[lastSieving]! <= b) lastSieving++;
   const nCross = lastSieving - firstSieving;
@@ -118,9 +117,10 @@ export function sieveCoreWasm(
     if (carry > 0) bytes.copyWithin(SEG, SEG + prevLen, SEG + prevLen + carry);
     k.presieve(carry >> 2, (L + 3) >> 2, base / 30);
     bytes.fill(0, SEG + L, SEG + L + 16);
-    if (base < 30 * PATTERN_PRIMES_BYTES) {
+    if (base <= kernel.lastTablePrime) {
+      // The tables removed their primes with the multiples: put them back; 1 is not prime.
       if (base === 0) bytes[SEG]! &= 0xfe;
-      for (const q of PATTERN_PRIMES) if (q >= base) bytes[SEG + (q - base - (q % 30)) / 30]! |= 1 << RESIDUE_BIT[q % 30]!;
+      for (const q of kernel.tablePrimes) if (q >= base) bytes[SEG + (q - base - (q % 30)) / 30]! |= 1 << RESIDUE_BIT[q % 30]!;
     }
     clearOutside(bytes, SEG, base, L, a, b);
 
