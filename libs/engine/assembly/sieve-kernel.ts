@@ -31,6 +31,12 @@ const MAX_RECORDS: i32 = 4096;
 /** Compiled pattern descriptors (i32 words; see countPattern). */
 const PATTERN: usize = 0x820000;
 const PATTERN_END: usize = 0x840000;
+/** Occurrence words of one piece of a pattern count, and the OR of a term's groups (u64 × PIECE_WORDS each). */
+const OCC: usize = 0x840000;
+const TMP: usize = 0x848000;
+const PIECE_WORDS: i32 = 4096;
+/** Gap counters of one gapWalk call (u32 × HIST_SIZE). */
+const HIST32: usize = 0x850000;
 /** Crossing primes the layout holds (π(2^20) − 15 = 82 010 are needed). */
 const MAX_PRIMES: i32 = 0x20000;
 /** Words written per presieve chunk; the tables are extended this much (+ 4) past their period. */
@@ -298,6 +304,7 @@ export function gapStart(last: f64, largest: i32): void {
   records = 0;
   gapTooLarge = 0;
   memory.fill(HIST, 0, <usize>HIST_SIZE << 3);
+  memory.fill(HIST32, 0, <usize>HIST_SIZE << 2);
 }
 
 /** Number of record gaps stored at RECORDS so far in this block. */
@@ -315,7 +322,11 @@ export function lastGapPrime(): f64 {
   return <f64>gapLast;
 }
 
-/** Adds the gaps of the primes in the words [0, words) of the segment starting at `base`. */
+/**
+ * Adds the gaps of the primes in the words [0, words) of the segment starting at `base`. Counted
+ * in 32-bit counters (an integer add is shorter than a floating-point one on the chains of equal
+ * gaps), added into the f64 histogram at the end of each call.
+ */
 export function gapWalk(words: i32, base: f64): void {
   const B = <i64>base;
   let last = gapLast;
@@ -324,31 +335,39 @@ export function gapWalk(words: i32, base: f64): void {
     const at = SEG + (<usize>w << 2);
     let x = w + 2 <= words ? load<u64>(at) : <u64>load<u32>(at);
     const wb = B + 120 * <i64>w;
+    if (last < 0 && x != 0) {
+      // The block's first prime: only where the previous one is still unknown.
+      last = wb + <i64>load<i32>(BIT_VALUE + (<usize>ctz<u64>(x) << 2));
+      x &= x - 1;
+    }
     while (x != 0) {
       const pos = <usize>ctz<u64>(x);
       x &= x - 1;
       const p = wb + <i64>load<i32>(BIT_VALUE + (pos << 2));
-      if (last >= 0) {
-        const g = <i32>(p - last);
-        if (g < HIST_SIZE) {
-          const h = HIST + (<usize>g << 3);
-          store<f64>(h, load<f64>(h) + 1.0);
-        } else gapTooLarge = 1;
-        if (g > largest) {
-          largest = g;
-          if (records < MAX_RECORDS) {
-            const r = RECORDS + (<usize>records << 4);
-            store<i32>(r, g);
-            store<f64>(r, <f64>last, 8);
-            records++;
-          }
+      const g = <i32>(p - last);
+      if (g > largest) {
+        largest = g;
+        if (g >= HIST_SIZE) gapTooLarge = 1;
+        if (records < MAX_RECORDS) {
+          const r = RECORDS + (<usize>records << 4);
+          store<i32>(r, g);
+          store<f64>(r, <f64>last, 8);
+          records++;
         }
       }
+      const h = HIST32 + (<usize>(g & (HIST_SIZE - 1)) << 2);
+      store<u32>(h, load<u32>(h) + 1);
       last = p;
     }
   }
   gapLast = last;
   gapMax = largest;
+  const top = <usize>min(largest, HIST_SIZE - 1);
+  for (let g: usize = 0; g <= top; g++) {
+    const h = HIST + (g << 3);
+    store<f64>(h, load<f64>(h) + <f64>load<u32>(HIST32 + (g << 2)));
+    store<u32>(HIST32 + (g << 2), 0);
+  }
 }
 
 // ---- constellation patterns ----
@@ -371,32 +390,43 @@ export function countPattern(words: i32, desc: i32): i32 {
   let count: i32 = 0;
   let firstW: i32 = -1, lastW: i32 = -1;
   let firstBits: u64 = 0, lastBits: u64 = 0;
-  for (let w = 0; w < words; w += 2) {
-    const at = SEG + (<usize>w << 2);
-    let occ = classMask;
-    if (w + 2 > words) occ &= 0xffffffff;
+  // Pieces of PIECE_WORDS 64-bit words (the occurrence words stay in the L1 cache); per piece one
+  // tight pass per term and group with its offset, shift and mask fixed (no per-word branches:
+  // an early exit when no start is left mispredicts for sparse patterns).
+  const n64 = (words + 1) >> 1;
+  for (let p0 = 0; p0 < n64; p0 += PIECE_WORDS) {
+    const pn = <usize>min(PIECE_WORDS, n64 - p0);
+    const src0 = SEG + (<usize>p0 << 3);
+    for (let i: usize = 0; i < pn; i++) store<u64>(OCC + (i << 3), classMask);
+    if (p0 + <i32>pn == n64 && (words & 1) != 0) store<u64>(OCC + ((pn - 1) << 3), classMask & 0xffffffff);
     let d = d0 + 12;
-    for (let t = 0; t < nTerms && occ != 0; t++) {
+    for (let t = 0; t < nTerms; t++) {
       const nGroups = load<i32>(d);
       d += 4;
-      let s: u64 = 0;
       for (let g = 0; g < nGroups; g++) {
-        const v = load<u64>(at + <usize>load<i32>(d));
+        const src = src0 + <usize>load<i32>(d);
         const sh = load<i32>(d, 4);
         const mask = <u64>load<u32>(d, 8) | (<u64>load<u32>(d, 12) << 32);
-        s |= (sh >= 0 ? v >> <u64>sh : v << <u64>(-sh)) & mask;
         d += 16;
+        // One group: AND straight into the occurrences; several: OR into TMP first.
+        const into = nGroups == 1 ? OCC : TMP;
+        const first = g == 0;
+        if (sh >= 0) groupPass(into, src, pn, <u64>sh, mask, nGroups == 1, first, true);
+        else groupPass(into, src, pn, <u64>(-sh), mask, nGroups == 1, first, false);
       }
-      occ &= s;
+      if (nGroups > 1) for (let i: usize = 0; i < pn; i++) store<u64>(OCC + (i << 3), load<u64>(OCC + (i << 3)) & load<u64>(TMP + (i << 3)));
     }
-    if (occ != 0) {
+    for (let i: usize = 0; i < pn; i++) {
+      const occ = load<u64>(OCC + (i << 3));
       count += <i32>popcnt<u64>(occ);
-      if (firstW < 0) {
+      const found = occ != 0;
+      const w = (p0 + <i32>i) << 1;
+      if (firstW < 0 && found) {
         firstW = w;
         firstBits = occ;
       }
-      lastW = w;
-      lastBits = occ;
+      lastW = select<i32>(w, lastW, found);
+      lastBits = select<u64>(occ, lastBits, found);
     }
   }
   if (count > 0) {
@@ -404,6 +434,20 @@ export function countPattern(words: i32, desc: i32): i32 {
     patLast = 120 * lastW + load<i32>(BIT_VALUE + (<usize>(63 - clz<u64>(lastBits)) << 2));
   }
   return count;
+}
+
+// @ts-ignore: decorator
+@inline function groupPass(into: usize, src: usize, n: usize, sh: u64, mask: u64, and: bool, first: bool, right: bool): void {
+  if (and) {
+    if (right) for (let i: usize = 0; i < n; i++) store<u64>(into + (i << 3), load<u64>(into + (i << 3)) & ((load<u64>(src + (i << 3)) >> sh) & mask));
+    else for (let i: usize = 0; i < n; i++) store<u64>(into + (i << 3), load<u64>(into + (i << 3)) & ((load<u64>(src + (i << 3)) << sh) & mask));
+  } else if (first) {
+    if (right) for (let i: usize = 0; i < n; i++) store<u64>(into + (i << 3), (load<u64>(src + (i << 3)) >> sh) & mask);
+    else for (let i: usize = 0; i < n; i++) store<u64>(into + (i << 3), (load<u64>(src + (i << 3)) << sh) & mask);
+  } else {
+    if (right) for (let i: usize = 0; i < n; i++) store<u64>(into + (i << 3), load<u64>(into + (i << 3)) | ((load<u64>(src + (i << 3)) >> sh) & mask));
+    else for (let i: usize = 0; i < n; i++) store<u64>(into + (i << 3), load<u64>(into + (i << 3)) | ((load<u64>(src + (i << 3)) << sh) & mask));
+  }
 }
 
 /** Value offset of the first occurrence found by the last countPattern with a non-zero count. */

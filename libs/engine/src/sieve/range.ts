@@ -90,8 +90,10 @@ export function sieveCompiled(
   let headPrimes: number[] = [];
   let tailPrimes: number[] = [];
   if (window > 0) {
-    headPrimes = primesInShortRange(a, Math.min(b, a + window - 1)).map((p) => p - a);
-    tailPrimes = primesInShortRange(Math.max(a, b - window + 1), b).map((p) => b - p).reverse();
+    const head = core.windows?.head ?? primesInShortRange(a, Math.min(b, a + window - 1));
+    const tail = core.windows?.tail ?? primesInShortRange(Math.max(a, b - window + 1), b);
+    headPrimes = head.map((p) => p - a);
+    tailPrimes = tail.map((p) => b - p).reverse();
   }
   const big = (v: number): bigint | null => (v < 0 ? null : BigInt(v));
   let gapStats: PrimeBlock['gaps'] = null;
