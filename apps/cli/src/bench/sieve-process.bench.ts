@@ -78,11 +78,15 @@ function pairs(label: string, a: [string, string[], boolean], b: [string, string
     if (x !== y) throw new Error(`${label}: twin counts differ (${x} against ${y})`);
   }
   const ratios = ta.map((r, i) => r.seconds / tb[i]!.seconds);
+  const cpuRatios = ta.map((r, i) => r.cpu / tb[i]!.cpu);
   return [
     { name: `${label}: first, wall (cpu) per run`, figure: list(ta.map((r) => r.seconds), sec) + ` (cpu ${list(ta.map((r) => r.cpu), sec)})` },
     { name: `${label}: second, wall (cpu) per run`, figure: list(tb.map((r) => r.seconds), sec) + ` (cpu ${list(tb.map((r) => r.cpu), sec)})` },
     { name: `${label}: ratio first/second per pair (twins ${twinsOf(ta[0]!, a[2])} both)`, figure: list(ratios, (r) => `×${r.toFixed(2)}`) },
     { name: `${label}: median ratio (medians ${sec(median(ta.map((r) => r.seconds)))} vs ${sec(median(tb.map((r) => r.seconds)))})`, figure: `×${median(ratios).toFixed(2)}` },
+    // CPU time of the whole process (all threads): steadier than the wall clock on a shared machine,
+    // but blind to parallelism, so only meaningful between runs with the same number of threads.
+    { name: `${label}: CPU ratio per pair, median`, figure: `${list(cpuRatios, (r) => `×${r.toFixed(2)}`)}; median ×${median(cpuRatios).toFixed(2)}` },
   ];
 }
 
