@@ -95,7 +95,8 @@ export class SieveKernel {
     tables.forEach((pattern, i) => {
       const n = pattern.period + chunk + 4;
       if (at + 4 * n > k.layout(17)) throw new Error('internal: the word patterns overflow the kernel layout');
-      for (let t = 0; t < n; t++) this.i32[(at >> 2) + t] = pattern.words[t % pattern.period]! | 0;
+      const w0 = at >> 2;
+      for (let t = 0; t < n; t += pattern.period) this.i32.set(new Int32Array(pattern.words.buffer, pattern.words.byteOffset, Math.min(pattern.period, n - t)), w0 + t);
       k.setPattern(i, at, pattern.period, pattern.inverse4);
       at += 4 * n + 16;
     });
