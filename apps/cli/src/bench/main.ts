@@ -1,5 +1,6 @@
 // `npm run bench [-- FILTER]`: runs the benchmark areas and prints one table of figures.
 // Each area module exports one async function returning rows { name, figure } and prints nothing.
+import { benchLedger } from './ledger.bench';
 import { benchNarrow } from './narrow.bench';
 import { benchSieve } from './sieve.bench';
 import { benchSieveProcess } from './sieve-process.bench';
@@ -14,6 +15,7 @@ const AREAS: ReadonlyArray<{ area: string; run: () => Promise<readonly BenchRow[
   { area: 'wheel', run: benchWheel },
   { area: 'sieve', run: benchSieve },
   { area: 'sieve-process', run: benchSieveProcess },
+  { area: 'ledger', run: benchLedger },
   { area: 'narrow', run: benchNarrow },
 ];
 
