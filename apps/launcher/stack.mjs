@@ -23,6 +23,8 @@ function newestMtime(path) {
 export function build({ forceWeb = false } = {}) {
   step('Compiling TypeScript (tsc -b)…');
   run(node, [bin('typescript/bin/tsc'), '-b'], { what: 'tsc -b (type errors above)' });
+  step('Compiling the WebAssembly sieve kernel (AssemblyScript)…');
+  run(node, [join(ROOT, 'libs/engine/scripts/build-wasm.mjs')], { what: 'the WebAssembly sieve kernel' });
   const index = join(ROOT, 'apps/web/dist/index.html');
   const inputs = ['apps/web', 'libs', 'vite.config.ts', 'package-lock.json'].map((p) => newestMtime(join(ROOT, p)));
   if (!forceWeb && existsSync(index) && statSync(index).mtimeMs > Math.max(...inputs)) {

@@ -24,7 +24,15 @@ describe('cribra count', () => {
     expect(one.count).toBe(two.count);
     expect(BigInt(one.first as string)).toBeGreaterThanOrEqual(1_000_000_000n);
   });
+  it('gives the same count, first and last with the WebAssembly kernel and the JavaScript sieve (--kernel)', () => {
+    // 3 424 506 twin pairs below 10^9: OEIS A007508.
+    const wasm = cribraJson('count', '--pattern', '0,2', '--to', '1e9', '--workers', '2', '--kernel', 'wasm');
+    const js = cribraJson('count', '--pattern', '0,2', '--to', '1e9', '--workers', '2', '--kernel', 'js');
+    expect(wasm).toEqual(js);
+    expect(wasm.count).toBe('3424506');
+  });
   it.each([
+    [['--pattern', '0,2', '--to', '100', '--kernel', 'fast'], /--kernel must be auto, wasm or js/],
     [['--pattern', '0,2', '--to', '1.5e3'], /not an integer/],
     [['--pattern', '0,2', '--to', '1e16'], /above the sieve limit/],
     [['--pattern', '0,2,4', '--to', '100'], /not admissible/],

@@ -1,7 +1,9 @@
 // `npm run bench [-- FILTER]`: runs the benchmark areas and prints one table of figures.
 // Each area module exports one async function returning rows { name, figure } and prints nothing.
+import { benchLedger } from './ledger.bench';
 import { benchNarrow, benchNarrowSearch } from './narrow.bench';
 import { benchSieve } from './sieve.bench';
+import { benchSieveProcess } from './sieve-process.bench';
 import { benchWheel } from './wheel.bench';
 
 export interface BenchRow {
@@ -12,13 +14,18 @@ export interface BenchRow {
 const AREAS: ReadonlyArray<{ area: string; run: () => Promise<readonly BenchRow[]>; onlyByName?: boolean }> = [
   { area: 'wheel', run: benchWheel },
   { area: 'sieve', run: benchSieve },
+  { area: 'sieve-process', run: benchSieveProcess },
+  { area: 'ledger', run: benchLedger },
   { area: 'narrow', run: benchNarrow },
   // Long (minutes): run it alone with `npm run bench -- narrowsearch`.
   { area: 'narrowsearch', run: benchNarrowSearch, onlyByName: true },
 ];
 
 async function bench(filter: string | undefined): Promise<number> {
-  const chosen = AREAS.filter((a) => (a.onlyByName ? filter?.toLowerCase() === a.area : !filter || a.area.includes(filter.toLowerCase())));
+  // An exact area name runs that area alone (`sieve` is also part of `sieve-process`); otherwise every
+  // area containing the word, except the long ones that run only when named.
+  const exact = AREAS.filter((a) => a.area === filter?.toLowerCase());
+  const chosen = exact.length > 0 ? exact : AREAS.filter((a) => !a.onlyByName && (!filter || a.area.includes(filter.toLowerCase())));
   if (chosen.length === 0) {
     process.stderr.write(`bench: no area matches "${filter}" (areas: ${AREAS.map((a) => a.area).join(', ')})\n`);
     return 2;

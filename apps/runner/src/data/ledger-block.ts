@@ -1,6 +1,7 @@
 import { createHash } from 'node:crypto';
 import type { Pool } from 'pg';
 import { ENGINE_VERSION, primeBlockToJson, sievePrimeBlock, type PrimeBlockJson } from '@cribra/engine';
+import { kernelFor } from '@cribra/engine/node';
 import { LEDGER_BLOCK_SIZE, LEDGER_CONSTELLATIONS, type GapCount, type RecordGap } from '@cribra/contracts';
 
 /** The constellation patterns every ledger block counts (same order everywhere, so blocks combine). */
@@ -44,7 +45,9 @@ export async function computeAndStoreBlock(db: Pool, index: number, runnerId: st
   const exists = await db.query(`SELECT 1 FROM ledger_blocks WHERE block_index = $1`, [index]);
   if (exists.rowCount) return false;
   const { from, to } = blockRange(index);
-  const json = primeBlockToJson(sievePrimeBlock(from, to, LEDGER_SIEVE_OPTIONS));
+  // The WebAssembly kernel when built (the same summary as the JavaScript sieve, tested so): its
+  // per-block set-up is about a third of the JavaScript sieve's (docs/benchmarks.md).
+  const json = primeBlockToJson(sievePrimeBlock(from, to, { ...LEDGER_SIEVE_OPTIONS, kernel: kernelFor('auto') ?? undefined }));
   const records: RecordGap[] = (json.gaps?.records ?? []).map((r) => ({ gap: r.gap, start: r.after }));
   const res = await db.query(
     `INSERT INTO ledger_blocks (block_index, start_n, end_n, prime_count, first_prime, last_prime, gap_histogram,

@@ -8,6 +8,8 @@ export interface SieveTask {
   readonly to: string;
   readonly gaps: boolean;
   readonly patterns: number[][];
+  /** Which sieve does the work (see SieveKernelChoice). */
+  readonly kernel: 'auto' | 'wasm' | 'js';
 }
 
 /** A sieve worker's answer: the block summary, or the engine error it met. */

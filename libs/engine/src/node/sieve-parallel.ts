@@ -15,6 +15,7 @@ import {
   type SieveOptions,
 } from '../sieve';
 import type { SieveTask, SieveTaskReply } from './sieve-messages';
+import { kernelFor, sieveKernelBuilt, sieveKernelModule, type SieveKernelChoice } from './wasm-kernel';
 
 /** Options of {@link sievePrimeBlockParallel}. */
 export interface ParallelSieveOptions extends SieveOptions {
@@ -26,6 +27,11 @@ export interface ParallelSieveOptions extends SieveOptions {
   readonly onProgress?: (done: number, total: number) => void;
   /** Stops the workers and rejects with EngineError(limit) "sieve cancelled" when aborted. */
   readonly signal?: AbortSignal;
+  /**
+   * The WebAssembly kernel (`wasm`), the JavaScript reference sieve (`js`), or the kernel when it
+   * is built (`auto`, the default). Ranges ending at or above 2^40 always take the JavaScript sieve.
+   */
+  readonly kernel?: SieveKernelChoice;
 }
 
 /** Ranges shorter than this are sieved in the calling thread (starting workers would cost more). */
@@ -52,7 +58,9 @@ function takeWorkers(n: number): Worker[] {
   const taken = idle.splice(0, n);
   if (taken.length < n) {
     const file = sieveWorkerFile();
-    while (taken.length < n) taken.push(new Worker(file));
+    // Compiled once here and posted: a WebAssembly.Module is shared with the workers, not recompiled.
+    const workerData = sieveKernelBuilt() ? { kernelModule: sieveKernelModule() } : {};
+    while (taken.length < n) taken.push(new Worker(file, { workerData }));
   }
   for (const w of taken) {
     w.removeAllListeners('exit');
@@ -103,9 +111,11 @@ export async function sievePrimeBlockParallel(
   if (!Number.isSafeInteger(workers) || workers < 1 || workers > 256) {
     throw inputError(`worker count ${workers} is not an integer from 1 to 256`);
   }
+  const choice = options.kernel ?? 'auto';
+  if (choice !== 'auto' && choice !== 'wasm' && choice !== 'js') throw inputError(`sieve kernel "${String(choice)}" is not auto, wasm or js`);
   const length = range.to - range.from + 1n;
   if (length < IN_THREAD_BELOW && options.blocks === undefined) {
-    const block = sievePrimeBlock(range.from, range.to, { gaps, patterns });
+    const block = sievePrimeBlock(range.from, range.to, { gaps, patterns, kernel: kernelFor(choice) ?? undefined });
     options.onProgress?.(1, 1);
     return block;
   }
@@ -130,7 +140,7 @@ export async function sievePrimeBlockParallel(
               if (nextTask >= ranges.length) return resolve();
               const id = nextTask++;
               const r = ranges[id]!;
-              const task: SieveTask = { id, from: r.from.toString(), to: r.to.toString(), gaps, patterns };
+              const task: SieveTask = { id, from: r.from.toString(), to: r.to.toString(), gaps, patterns, kernel: choice };
               worker.postMessage(task);
             };
             worker.on('message', (reply: SieveTaskReply) => {

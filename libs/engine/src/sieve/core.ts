@@ -35,6 +35,12 @@ export interface CoreResult {
   lastPrime: number;
   patterns: CorePatternResult[];
   gaps: CoreGapResult | null;
+  /**
+   * The primes of the boundary windows [a, a + W) and (b − W, b] (W = the largest pattern
+   * diameter), increasing, when the sieve collected them itself (the kernel driver does; without
+   * them the caller walks the windows).
+   */
+  windows?: { head: number[]; tail: number[] };
 }
 
 // The segment as module constants (see SEGMENT_BUFFER: why not parameters).

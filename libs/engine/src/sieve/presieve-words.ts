@@ -16,6 +16,8 @@ export interface WordPattern {
   readonly inverse4: number;
 }
 
+const LITTLE_ENDIAN = new Uint8Array(new Uint32Array([1]).buffer)[0] === 1;
+
 /** Builds the word pattern of the given odd primes (> 5). */
 export function wordPattern(primes: readonly number[]): WordPattern {
   const period = primes.reduce((x, p) => x * p, 1);
@@ -28,14 +30,22 @@ export function wordPattern(primes: readonly number[]): WordPattern {
       for (let k = k0; k < period; k += p) bytes[k]! &= clear;
     }
   }
-  const words = new Uint32Array(period);
-  for (let t = 0; t < period; t++) {
-    const k = (4 * t) % period;
-    words[t] =
-      (bytes[k]! | (bytes[(k + 1) % period]! << 8) | (bytes[(k + 2) % period]! << 16) | (bytes[(k + 3) % period]! << 24)) >>> 0;
+  // Word t packs bytes 4t … 4t+3 mod the period, so the words read in order are the byte period
+  // repeated four times: on a little-endian machine that is a plain view of it (this runs once per
+  // thread at module load, before V8 optimizes anything, so a per-word loop cost milliseconds).
+  const repeated = new Uint8Array(4 * period);
+  for (let r = 0; r < 4; r++) repeated.set(bytes, r * period);
+  let words = new Uint32Array(repeated.buffer);
+  if (!LITTLE_ENDIAN) {
+    words = new Uint32Array(period);
+    for (let t = 0; t < period; t++) {
+      const k = 4 * t;
+      words[t] = (repeated[k]! | (repeated[k + 1]! << 8) | (repeated[k + 2]! << 16) | (repeated[k + 3]! << 24)) >>> 0;
+    }
   }
-  let inverse4 = 1;
-  while ((4 * inverse4) % period !== 1) inverse4++;
+  // 1/4 = (1/2)² and 1/2 = (period + 1)/2 modulo an odd period.
+  const half = (period + 1) / 2;
+  const inverse4 = (half * half) % period;
   return { period, words, inverse4 };
 }
 
@@ -54,7 +64,7 @@ const D = wordPattern([43, 47]);
 const CHUNK_WORDS = 4096;
 const extend = (pattern: WordPattern): Uint32Array => {
   const words = new Uint32Array(pattern.period + CHUNK_WORDS);
-  for (let t = 0; t < words.length; t++) words[t] = pattern.words[t % pattern.period]!;
+  for (let t = 0; t < words.length; t += pattern.period) words.set(pattern.words.subarray(0, Math.min(pattern.period, words.length - t)), t);
   return words;
 };
 // Module constants (as the segment views): the hot loop then has no table loads to repeat.
@@ -62,6 +72,8 @@ const A_WORDS = extend(A);
 const B_WORDS = extend(B);
 const C_WORDS = extend(C);
 const D_WORDS = extend(D);
+/** The four patterns of 7 … 47 (for the WebAssembly kernel, which copies them into its memory). */
+export const WORD_PATTERNS: readonly WordPattern[] = [A, B, C, D];
 /** The largest prime removed by a pattern (crossing off starts after it). */
 export const LAST_PATTERN_PRIME = 47;
 /** The primes the patterns remove together with their multiples (to be put back). */

@@ -1,5 +1,7 @@
 import { inputError, limitError } from '../errors';
 import { sieveCore } from './core';
+import { kernelFits, sieveCoreWasm } from './core-wasm';
+import type { SieveKernel } from './kernel';
 import { compilePattern, type CompiledPattern } from './pattern';
 import type { PrimeBlock } from './prime-block';
 import type { WorkHooks } from './progress';
@@ -14,6 +16,15 @@ export interface SieveOptions {
   readonly gaps?: boolean;
   /** Constellation patterns H (each any order, normalized to start at 0; must be admissible). */
   readonly patterns?: ReadonlyArray<ReadonlyArray<number | bigint | string>>;
+}
+
+/**
+ * Which inner loops sieve: an instantiated WebAssembly kernel (`@cribra/engine/node` loads one per
+ * thread) or, when absent, the JavaScript reference sieve. Ranges ending at or above 2^40 and
+ * patterns too large for the kernel's memory always take the JavaScript sieve.
+ */
+export interface KernelOption {
+  readonly kernel?: SieveKernel;
 }
 
 /** A range end given as bigint, safe integer or decimal string. */
@@ -54,24 +65,35 @@ function toBig(v: RangeEnd, name: string): bigint {
  * @throws EngineError(input) for a malformed range or pattern, EngineError(domain) for a
  *   non-admissible pattern, EngineError(limit) for to > 10^15 or when `shouldStop` answers true.
  */
-export function sievePrimeBlock(from: RangeEnd, to: RangeEnd, options: SieveOptions & WorkHooks = {}): PrimeBlock {
+export function sievePrimeBlock(from: RangeEnd, to: RangeEnd, options: SieveOptions & WorkHooks & KernelOption = {}): PrimeBlock {
   const range = parseSieveRange(from, to);
   const compiled = (options.patterns ?? []).map((p) => compilePattern(p));
-  return sieveCompiled(range.from, range.to, compiled, options.gaps ?? false, options);
+  return sieveCompiled(range.from, range.to, compiled, options.gaps ?? false, options, options.kernel);
 }
 
 /** {@link sievePrimeBlock} on a checked range with compiled patterns. */
-export function sieveCompiled(from: bigint, to: bigint, compiled: readonly CompiledPattern[], gaps: boolean, hooks?: WorkHooks): PrimeBlock {
+export function sieveCompiled(
+  from: bigint,
+  to: bigint,
+  compiled: readonly CompiledPattern[],
+  gaps: boolean,
+  hooks?: WorkHooks,
+  kernel?: SieveKernel,
+): PrimeBlock {
   const a = Number(from);
   const b = Number(to);
   const sieving = sievingPrimesFor(b);
-  const core = sieveCore(a, b, compiled, gaps, sieving, hooks?.onProgress || hooks?.shouldStop ? hooks : undefined);
+  const h = hooks?.onProgress || hooks?.shouldStop ? hooks : undefined;
+  const core =
+    (kernel && kernelFits(b) ? sieveCoreWasm(kernel, a, b, compiled, gaps, sieving, h) : null) ?? sieveCore(a, b, compiled, gaps, sieving, h);
   const window = compiled.reduce((w, cp) => Math.max(w, cp.diameter), 0);
   let headPrimes: number[] = [];
   let tailPrimes: number[] = [];
   if (window > 0) {
-    headPrimes = primesInShortRange(a, Math.min(b, a + window - 1)).map((p) => p - a);
-    tailPrimes = primesInShortRange(Math.max(a, b - window + 1), b).map((p) => b - p).reverse();
+    const head = core.windows?.head ?? primesInShortRange(a, Math.min(b, a + window - 1));
+    const tail = core.windows?.tail ?? primesInShortRange(Math.max(a, b - window + 1), b);
+    headPrimes = head.map((p) => p - a);
+    tailPrimes = tail.map((p) => b - p).reverse();
   }
   const big = (v: number): bigint | null => (v < 0 ? null : BigInt(v));
   let gapStats: PrimeBlock['gaps'] = null;
