@@ -2,3 +2,4 @@
 // The pure entry (`@cribra/engine`) must stay loadable in a browser.
 export * from './wheel-pool';
 export * from './sieve-parallel';
+export * from './split-pool';
