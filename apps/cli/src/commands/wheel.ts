@@ -1,6 +1,6 @@
 // `cribra wheel`: one wheel level — modulus p#, φ(p#) members, largest gap, full gap histogram.
 import {
-  checkedHistogram, gapHistogram, histogramByCounts, histogramMaxGap, previousPrime, primorial, primorialTotient, SPLIT_DEFAULT_BASE,
+  checkedHistogram, defaultSplitBase, gapHistogram, histogramByCounts, histogramMaxGap, primorial, primorialTotient,
   SPLIT_MAX_LEVEL, type GapHistogram,
 } from '@cribra/engine';
 import { gapHistogramParallel, splitHistogramsParallel } from '@cribra/engine/node';
@@ -25,7 +25,7 @@ function defaultRoute(p: number): Route {
 function checkRoute(route: Route, p: number): void {
   if (route === 'enumerated' && p > 23) throw new CliError(`--route enumerated holds levels ≤ 23 in memory, not ${p}`);
   if (route === 'recursion' && p > 37) throw new CliError(`--route recursion reaches level 37 at most, not ${p}`);
-  if (route === 'split' && p <= 5) throw new CliError(`--route split needs a level above 5 (base 3 or more), not ${p}`);
+  if (route === 'split' && p < 7) throw new CliError(`--route split needs a level of 7 or more (its base is two primes below), not ${p}`);
 }
 
 async function histogramBy(route: Route, p: number, workers: number): Promise<GapHistogram> {
@@ -36,11 +36,8 @@ async function histogramBy(route: Route, p: number, workers: number): Promise<Ga
       return p >= 37 ? gapHistogramParallel(p, { workers }) : gapHistogram(p);
     case 'closed-form':
       return histogramByCounts(p);
-    case 'split': {
-      // the base: 23# where the levels are above it, else the level before the one before p
-      const base = p > SPLIT_DEFAULT_BASE ? SPLIT_DEFAULT_BASE : previousPrime(previousPrime(p));
-      return (await splitHistogramsParallel([p], { workers, base })).histograms.get(p)!;
-    }
+    case 'split':
+      return (await splitHistogramsParallel([p], { workers, base: defaultSplitBase(p) })).histograms.get(p)!;
   }
 }
 

@@ -68,6 +68,22 @@ describe('split route: whole histograms', () => {
     // OEIS A048670: j(37#) = 66, j(41#) = 74
     expect([histogramMaxGap(a.get(37)!), histogramMaxGap(a.get(41)!)]).toEqual([66, 74]);
   });
+  // OEIS A048670 (Jacobsthal function of the primorials): j(41#) = 74, j(43#) = 90, j(47#) = 100
+  it('Jacobsthal values of 41# and 43#: 74 and 90 (OEIS A048670), from the largest non-zero count, over 19# and 23#', () => {
+    const over19 = splitHistograms([41, 43], 19); // Σ n_g = φ(p#) and Σ g·n_g = p# checked inside
+    expect([41, 43].map((p) => histogramMaxGap(over19.get(p)!))).toEqual([74, 90]);
+    for (const p of [41, 43]) expect(histogramIdentities(p, over19.get(p)!).holds).toBe(true);
+    // a different windowing (over 23#, other windows need the exact count) gives the same histograms
+    const over23 = splitHistograms([41, 43], 23);
+    expect([over23.get(41), over23.get(43)]).toEqual([over19.get(41), over19.get(43)]);
+  }, 300_000);
+  it('Jacobsthal value of 47#: 100 (OEIS A048670); n2 = ∏(q − 2) (OEIS A059861) as the closed form says', () => {
+    const h = splitHistograms([47], 23).get(47)!; // about 5 s of one core unloaded
+    expect(histogramMaxGap(h)).toBe(100);
+    expect(histogramIdentities(47, h).holds).toBe(true);
+    expect(h.get(2)).toBe([3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41, 43, 47].reduce((s, q) => s * BigInt(q - 2), 1n));
+    expect(h.get(4)).toBe(h.get(2)); // n4 = n2 at every level (closed forms ∏(q−2) and ∏(q−2) − ∏(q−3) agree)
+  }, 300_000);
   it('chunks partition the work: any split into chunks, through JSON, gives the one-pass result', () => {
     const whole = splitHistograms([29, 31, 37], 13);
     const gaps = wheelGaps(13);
