@@ -62,7 +62,7 @@ export function readRunnerConfig(env: NodeJS.ProcessEnv = process.env): RunnerCo
     levelOnePieceUpTo: positiveInt(env.CRIBRA_LEVEL_ONE_PIECE_UP_TO, 23, 'CRIBRA_LEVEL_ONE_PIECE_UP_TO'),
     levelStepsPerChunk: positiveInt(env.CRIBRA_LEVEL_STEPS_PER_CHUNK, 1e9, 'CRIBRA_LEVEL_STEPS_PER_CHUNK'),
     levelRecursionFrom: positiveInt(env.CRIBRA_LEVEL_RECURSION_FROM, 29, 'CRIBRA_LEVEL_RECURSION_FROM'),
-    levelSplitFrom: positiveInt(env.CRIBRA_LEVEL_SPLIT_FROM, 37, 'CRIBRA_LEVEL_SPLIT_FROM'),
+    levelSplitFrom: positiveInt(env.CRIBRA_LEVEL_SPLIT_FROM, 41, 'CRIBRA_LEVEL_SPLIT_FROM'),
     levelSplitChunks: positiveInt(env.CRIBRA_LEVEL_SPLIT_CHUNKS, 32, 'CRIBRA_LEVEL_SPLIT_CHUNKS'),
     testPauseMs:
       cribraEnv === 'test' && env.CRIBRA_RUNNER_TEST_PAUSE_MS

@@ -43,10 +43,10 @@ export const SMALL_LEVEL_PATTERN_LENGTHS = [2, 3] as const;
 export const STREAMED_PATTERN_LENGTH = 2;
 /** Base-cycle steps per chunk job by default (a few seconds of one core). */
 export const STEPS_PER_CHUNK = 1e9;
-/** Chunked levels from this prime on take the recursion route by default (29#, 31#). */
+/** Chunked levels from this prime on take the recursion route by default (29#, 31#, 37#: they keep pair tallies). */
 export const RECURSION_FROM = 29;
-/** Levels from this prime on take the split route by default (37# … 47#). */
-export const SPLIT_FROM = 37;
+/** Levels from this prime on take the split route by default (41# … 47#: histograms only). */
+export const SPLIT_FROM = 41;
 /** Chunk jobs of a split-route level by default (47#: about a second of one core each, as measured). */
 export const SPLIT_CHUNKS = 32;
 
