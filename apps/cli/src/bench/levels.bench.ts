@@ -40,7 +40,9 @@ function splitOnce(p: number, base = defaultSplitBase(p)) {
  * process), against the closed-form counts (one count at 47#, whole histograms by inclusion–exclusion).
  */
 export async function benchLevels(): Promise<Array<{ name: string; figure: string }>> {
-  const out: Array<{ name: string; figure: string }> = [];
+  const rows: Array<{ name: string; figure: string }> = [];
+  // each row also goes to stderr at once: the closed-form rows take minutes
+  const out = { push: (r: { name: string; figure: string }) => (rows.push(r), process.stderr.write(`  ${r.name}: ${r.figure}\n`)) };
   const split = new Map<number, GapHistogram>();
   for (const [p, bases] of [[41, [19, 23]], [43, [19, 23]], [47, [23, 19]]] as const) {
     for (const base of bases) {
@@ -79,5 +81,5 @@ export async function benchLevels(): Promise<Array<{ name: string; figure: strin
     const t = await timed(() => histogramByCounts(p));
     out.push({ name: `${p}# histogram by closed-form counts alone, 1 thread (${same(t.value, split.get(p)!) ? 'equal to' : 'DIFFERENT from'} the split route)`, figure: both(t) });
   }
-  return out;
+  return rows;
 }
