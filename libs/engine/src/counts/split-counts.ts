@@ -143,8 +143,7 @@ export function runSplitChunk(spec: SplitChunkSpec, baseGaps: Uint8Array, hooks?
   if (!(Number.isSafeInteger(from) && Number.isSafeInteger(to) && from >= 0 && from <= to && to <= n)) {
     throw inputError(`split chunk [${from}, ${to}) is not inside the ${n} members of level ${base}`);
   }
-  let baseMax = 0;
-  for (let i = 0; i < n; i++) if (baseGaps[i]! > baseMax) baseMax = baseGaps[i]!;
+  const baseMax = 255; // a gap of the base cycle fits one byte (no scan of the whole cycle per chunk)
   // K of the deepest level (the most primes above the base) bounds every window's first K points
   const Kmax = Array.from(primesUpTo(levels[levels.length - 1]!)).filter((q) => q > base).length + 1;
   const span = Kmax * baseMax;
@@ -193,7 +192,7 @@ export function runSplitChunk(spec: SplitChunkSpec, baseGaps: Uint8Array, hooks?
     }
     for (const [key, count] of lv.windows) {
       const pts = key.split(',').map(Number);
-      const F = windowFirstUncovered(pts, lv.primes);
+      const F = cachedWindow(lv.prime, key, pts, lv.primes);
       const m = BigInt(count);
       for (let k = 1; k < F.length; k++) if (F[k]) add(pts[k - 1]!, m * F[k]!);
       for (let k = 1; k <= lv.K; k++) add(pts[k - 1]!, -m * lv.f[k]!); // undo the generic count taken above
@@ -212,6 +211,27 @@ export function runSplitChunk(spec: SplitChunkSpec, baseGaps: Uint8Array, hooks?
     exactWindows: plans.map((l) => l.exact),
     distinctWindows: plans.map((l) => l.windows.size),
   };
+}
+
+// The exact count of a window depends only on its offsets and the primes above the base, so it is
+// kept across chunks: chunks of one level meet the same windows again (47# over 23# in 16 chunks:
+// 244 490 windows to count without this, 51 931 distinct). Bounded; pure mathematics.
+const WINDOW_CACHE_LIMIT = 200_000;
+const windowCache = new Map<string, bigint[]>();
+
+function cachedWindow(prime: number, key: string, points: number[], primes: readonly number[]): bigint[] {
+  const k = `${primes[0]}-${prime}:${key}`;
+  const hit = windowCache.get(k);
+  if (hit) return hit;
+  const F = windowFirstUncovered(points, primes);
+  if (windowCache.size >= WINDOW_CACHE_LIMIT) windowCache.clear();
+  windowCache.set(k, F);
+  return F;
+}
+
+/** Drops the split route's cache of counted windows (a few tens of MB after 47#). */
+export function clearSplitWindowCache(): void {
+  windowCache.clear();
 }
 
 /**
