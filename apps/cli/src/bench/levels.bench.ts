@@ -3,7 +3,7 @@
 import { execFileSync } from 'node:child_process';
 import { join } from 'node:path';
 import {
-  clearWheelCache, defaultSplitBase, gapCount, histogramByCounts, histogramIdentities, histogramMaxGap, runSplitChunk,
+  clearClosedFormCache, clearSplitWindowCache, clearWheelCache, defaultSplitBase, gapCount, histogramByCounts, histogramIdentities, histogramMaxGap, runSplitChunk,
   splitHistogramsFromResult, wheelGaps, type GapHistogram,
 } from '@cribra/engine';
 import { splitHistogramsParallel } from '@cribra/engine/node';
@@ -29,6 +29,7 @@ const same = (a: GapHistogram, b: GapHistogram) => a.size === b.size && [...a].e
 /** One level by the split route in this thread, from a cold base cycle. */
 function splitOnce(p: number, base = defaultSplitBase(p)) {
   clearWheelCache();
+  clearSplitWindowCache();
   const gaps = wheelGaps(base);
   const r = runSplitChunk({ base, levels: [p], from: 0, to: gaps.length }, gaps);
   return { histogram: splitHistogramsFromResult(r).get(p)!, exact: r.exactWindows[0]!, distinct: r.distinctWindows[0]! };
@@ -37,7 +38,7 @@ function splitOnce(p: number, base = defaultSplitBase(p)) {
 /**
  * 41#, 43#, 47# by the split route (one thread, each from its default base and from the other one;
  * all levels 29 … 47 in one pass over 23#; 47# on 2 workers; `cribra wheel --level 47` as a whole
- * process), against the closed-form counts (one count at 47#, whole histograms by inclusion–exclusion).
+ * process). The closed-form route beside it: {@link benchClosedForms}.
  */
 export async function benchLevels(): Promise<Array<{ name: string; figure: string }>> {
   const rows: Array<{ name: string; figure: string }> = [];
@@ -58,6 +59,7 @@ export async function benchLevels(): Promise<Array<{ name: string; figure: strin
     }
   }
   clearWheelCache();
+  clearSplitWindowCache();
   const all = await timed(() => {
     const gaps = wheelGaps(23);
     return splitHistogramsFromResult(runSplitChunk({ base: 23, levels: [29, 31, 37, 41, 43, 47], from: 0, to: gaps.length }, gaps));
@@ -71,13 +73,28 @@ export async function benchLevels(): Promise<Array<{ name: string; figure: strin
     return JSON.parse(execFileSync(process.execPath, [bin, 'wheel', '--level', '47', '--workers', '2', '--json'], { encoding: 'utf8' })) as { maxGap: number; route: string };
   });
   out.push({ name: `whole process: cribra wheel --level 47 --workers 2 (route ${one.value.route}, largest gap ${one.value.maxGap})`, figure: s(one.wall) });
+  return rows;
+}
+
+/**
+ * The closed-form route at 41# … 47# (minutes): one count at 47# (gaps 90 and 100) and whole
+ * histograms by the inclusion–exclusion counts alone, each compared with the split route.
+ */
+export async function benchClosedForms(): Promise<Array<{ name: string; figure: string }>> {
+  const rows: Array<{ name: string; figure: string }> = [];
+  const out = { push: (r: { name: string; figure: string }) => (rows.push(r), process.stderr.write(`  ${r.name}: ${r.figure}\n`)) };
+  const split = new Map([41, 43, 47].map((p) => [p, splitOnce(p).histogram]));
   // the closed-form route: one count at 47# (gap 90: 13 primes in the inclusion–exclusion) …
+  // every row from a cold cache of closed forms (a form serves every level from its validFrom on)
+  clearClosedFormCache();
   const c90 = await timed(() => gapCount(90, 47));
   out.push({ name: `one closed-form count at 47#: gap 90 (${c90.value === split.get(47)!.get(90) ? 'equals' : 'DIFFERS FROM'} the split route)`, figure: both(c90) });
+  clearClosedFormCache();
   const c100 = await timed(() => gapCount(100, 47));
   out.push({ name: `one closed-form count at 47#: gap 100, 14 primes (${c100.value === split.get(47)!.get(100) ? 'equals' : 'DIFFERS FROM'} the split route)`, figure: both(c100) });
   // … and whole histograms by the closed forms alone (independent of the split route)
   for (const p of [41, 43, 47]) {
+    clearClosedFormCache();
     const t = await timed(() => histogramByCounts(p));
     out.push({ name: `${p}# histogram by closed-form counts alone, 1 thread (${same(t.value, split.get(p)!) ? 'equal to' : 'DIFFERENT from'} the split route)`, figure: both(t) });
   }

@@ -1,6 +1,6 @@
 // `npm run bench [-- FILTER]`: runs the benchmark areas and prints one table of figures.
 // Each area module exports one async function returning rows { name, figure } and prints nothing.
-import { benchLevels } from './levels.bench';
+import { benchClosedForms, benchLevels } from './levels.bench';
 import { benchNarrow } from './narrow.bench';
 import { benchSieve } from './sieve.bench';
 import { benchWheel } from './wheel.bench';
@@ -13,6 +13,7 @@ export interface BenchRow {
 const AREAS: ReadonlyArray<{ area: string; run: () => Promise<readonly BenchRow[]> }> = [
   { area: 'wheel', run: benchWheel },
   { area: 'wheel-levels', run: benchLevels },
+  { area: 'closed-forms', run: benchClosedForms },
   { area: 'sieve', run: benchSieve },
   { area: 'narrow', run: benchNarrow },
 ];
