@@ -1,5 +1,5 @@
 import {
-  gapHistogram, type GapHistogram, primorialTotient, wheelLevelStats, wheelMembers, checkLevel, primorial, splitHistograms,
+  checkedHistogram, gapHistogram, type GapHistogram, primorialTotient, wheelLevelStats, wheelMembers, checkLevel, primorial, splitHistograms,
   SPLIT_MAX_LEVEL,
 } from '@cribra/engine';
 import { domainError, limitError } from '../errors';
@@ -11,7 +11,7 @@ import { argInt, argSeries, argSmall, type Builtin, type CallContext, defineBuil
 export const MAX_RECURSION_LEVEL = 31;
 /** Deepest level computed on demand inside a cell: 37# … 47# by the split route; deeper ones must be stored. */
 export const MAX_COMPUTED_LEVEL = SPLIT_MAX_LEVEL;
-/** Split-route base for levels up to 41 (19#: 1 658 880 members, under a second); 43# and 47# use 23#. */
+/** Split-route base up to 43# (19#: 1 658 880 members; 41# under a second, 43# about one); 47# uses 23#. */
 const SMALL_SPLIT_BASE = 19;
 /** Deepest level whose first positions and pattern tallies are computed on demand. */
 export const MAX_STATS_LEVEL = 29;
@@ -37,8 +37,8 @@ export function levelHistogram(c: CallContext, p: number, fn: string): GapHistog
   if (hit) return hit;
   const work = c.work(`gap histogram of level ${p}`);
   work.onProgress?.(0);
-  // the split route checks Σ n_g = φ(p#) and Σ g·n_g = p# before it returns
-  const h = p <= MAX_RECURSION_LEVEL ? gapHistogram(p, undefined, work) : splitHistograms([p], p <= 41 ? SMALL_SPLIT_BASE : 23, work).get(p)!;
+  // Σ n_g = φ(p#) and Σ g·n_g = p# checked before the histogram is used (stored levels were checked when stored)
+  const h = checkedHistogram(p, p <= MAX_RECURSION_LEVEL ? gapHistogram(p, undefined, work) : splitHistograms([p], p <= 43 ? SMALL_SPLIT_BASE : 23, work).get(p)!);
   computed.set(p, h);
   c.progress(1, `gap histogram of level ${p}`);
   return h;
