@@ -63,11 +63,25 @@ describe('levels, ledger and computations', () => {
     }
   });
 
+  it('computes level 41 through the runner by the split route: Jacobsthal value 74 (OEIS A048670)', async () => {
+    const req = await me.client.call('post', '/api/levels/41/computations');
+    expect(req.status).toBe(202);
+    expect(await finished(req.body.id)).toMatchObject({ status: 'succeeded', chunksTotal: 32, chunksDone: 32 });
+    const level = (await me.client.call('get', '/api/levels/41')).body as WheelLevelView;
+    // 41# = 304250263527210 (OEIS A002110), φ(41#) = 44144787456000 (OEIS A005867)
+    expect(level).toMatchObject({ prime: 41, modulus: '304250263527210', phi: '44144787456000', largestGap: 74, status: 'stored', patternTallies: [] });
+    // the runner checked both identities before storing; check them again on what was stored
+    expect(level.histogram.reduce((s, h) => s + BigInt(h.count), 0n)).toBe(44144787456000n);
+    expect(level.histogram.reduce((s, h) => s + BigInt(h.gap) * BigInt(h.count), 0n)).toBe(304250263527210n);
+    // n2 = ∏_{3 ≤ q ≤ 41}(q − 2) (OEIS A059861)
+    expect(level.histogram[0]).toEqual({ gap: 2, count: [3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41].reduce((s, q) => s * BigInt(q - 2), 1n).toString() });
+  }, 60_000);
+
   it('refuses levels that are not primes or too deep (400) and unknown ones (404)', async () => {
     const bad = await me.client.call('post', '/api/levels/12/computations');
     expect(bad.status).toBe(400);
     expect(bad.body.details).toEqual([{ field: 'prime', messages: [expect.stringContaining('not a prime')] }]);
-    expect((await me.client.call('post', '/api/levels/43/computations')).status).toBe(400);
+    expect((await me.client.call('post', '/api/levels/53/computations')).status).toBe(400);
     expect((await me.client.call('post', '/api/levels/seven/computations')).status).toBe(400);
     expect((await me.client.call('get', '/api/levels/13')).status).toBe(404);
     expect((await me.client.call('get', `/api/computations/${NO_SUCH_ID}`)).status).toBe(404);

@@ -227,4 +227,23 @@ describe('queue and runners', () => {
     // Jacobsthal function of 19#: the largest gap of level 19 is 34 (OEIS A048670; value from memory).
     expect(level.largestGap).toBe(34);
   }, 90_000);
+
+  it('computes a wheel level by the split route in chunks on two runners, equal to the enumeration', async () => {
+    // 23# by the split route over the members of 17# (primes 19 and 23 by inclusion–exclusion per window),
+    // cut into 6 chunks of base members; each chunk gives partial counts of every gap.
+    const knobs = { CRIBRA_LEVEL_SPLIT_FROM: '23', CRIBRA_LEVEL_SPLIT_CHUNKS: '6', ...SHARE_PAUSE };
+    stack.startRunner('level-h', knobs);
+    stack.startRunner('level-i', knobs);
+    await stack.stopRunnersNamed(['level-f', 'level-g']);
+    const level = await computeLevel(23);
+    expect(level.chunksTotal).toBe(6);
+    const logs = stack.logs.get('level-h')! + stack.logs.get('level-i')!;
+    expect(logs).toContain('by the split route over the members of 17#');
+    expect(logs).toContain('(split route over 17#)');
+    expect(stack.logs.get('level-h')!.includes('chunk') && stack.logs.get('level-i')!.includes('chunk')).toBe(true);
+    // 23# = 223092870 (OEIS A002110), φ(23#) = 36495360 (OEIS A005867); Jacobsthal 40 (OEIS A048670)
+    expect(level).toMatchObject({ prime: 23, modulus: '223092870', phi: '36495360', largestGap: 40, patternTallies: [] });
+    const single = wheelLevelStats(23, []);
+    expect(level.histogram).toEqual([...single.histogram].map(([gap, count]) => ({ gap, count: count.toString() })));
+  }, 90_000);
 });

@@ -13,7 +13,32 @@ describe('cribra wheel', () => {
   it('groups digits with thin spaces in the readable form', () => {
     expect(cribra('wheel', '--level', '13').stdout).toContain('30\u2009030');
   });
-  it.each([['9', /not a prime/], ['43', /--level/], ['1e1.5', /not an integer/]])('rejects --level %s', (level, msg) => {
+  it('says which route made the histogram; every route gives the enumerated histogram of level 13', () => {
+    const enumerated = cribraJson('wheel', '--level', '13');
+    expect(enumerated.route).toBe('enumerated');
+    for (const route of ['recursion', 'split', 'closed-form']) {
+      const r = cribraJson('wheel', '--level', '13', '--route', route);
+      expect(r.route).toBe(route);
+      expect(r.histogram).toEqual(enumerated.histogram);
+    }
+  });
+  it('level 41 by the split route (default from 37): largest gap 74 (OEIS A048670), identities hold', () => {
+    const r = cribraJson('wheel', '--level', '41', '--workers', '2');
+    // 41# = 304250263527210 (OEIS A002110), φ(41#) = 44144787456000 (OEIS A005867)
+    expect(r).toMatchObject({ prime: 41, modulus: '304250263527210', members: '44144787456000', maxGap: 74, route: 'split' });
+    const h = r.histogram as Record<string, string>;
+    expect(Object.values(h).reduce((s, v) => s + BigInt(v), 0n)).toBe(44144787456000n);
+    expect(Object.entries(h).reduce((s, [g, v]) => s + BigInt(g) * BigInt(v), 0n)).toBe(304250263527210n);
+    // n2 = ∏_{3 ≤ q ≤ 41}(q − 2) (OEIS A059861): the closed form of the twin gap, a second path
+    expect(h['2']).toBe([3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41].reduce((s, q) => s * BigInt(q - 2), 1n).toString());
+  });
+  it('refuses a route that cannot reach the level, and unknown routes', () => {
+    expectUsageError(cribra('wheel', '--level', '29', '--route', 'enumerated'), /levels ≤ 23/);
+    expectUsageError(cribra('wheel', '--level', '41', '--route', 'recursion'), /level 37 at most/);
+    expectUsageError(cribra('wheel', '--level', '5', '--route', 'split'), /7 or more/);
+    expectUsageError(cribra('wheel', '--level', '13', '--route', 'guess'), /--route must be one of enumerated, recursion, split, closed-form/);
+  });
+  it.each([['9', /not a prime/], ['53', /--level/], ['1e1.5', /not an integer/]])('rejects --level %s', (level, msg) => {
     expectUsageError(cribra('wheel', '--level', level), msg);
   });
   it('rejects --workers 0', () => {

@@ -27,6 +27,13 @@ export interface RunnerConfig {
    * then the pair and histogram recursions) when it applies; smaller ones stream the level itself.
    */
   levelRecursionFrom: number;
+  /**
+   * Levels from this prime on (to 47) take the split route: chunks of base members, each giving
+   * partial counts of every gap (see the engine's runSplitChunk).
+   */
+  levelSplitFrom: number;
+  /** Chunk jobs of a split-route level. */
+  levelSplitChunks: number;
   /** Test hook, honoured only with CRIBRA_ENV=test: pause inside each cell or chunk job after it started. */
   testPauseMs: number;
   env: string;
@@ -55,6 +62,8 @@ export function readRunnerConfig(env: NodeJS.ProcessEnv = process.env): RunnerCo
     levelOnePieceUpTo: positiveInt(env.CRIBRA_LEVEL_ONE_PIECE_UP_TO, 23, 'CRIBRA_LEVEL_ONE_PIECE_UP_TO'),
     levelStepsPerChunk: positiveInt(env.CRIBRA_LEVEL_STEPS_PER_CHUNK, 1e9, 'CRIBRA_LEVEL_STEPS_PER_CHUNK'),
     levelRecursionFrom: positiveInt(env.CRIBRA_LEVEL_RECURSION_FROM, 29, 'CRIBRA_LEVEL_RECURSION_FROM'),
+    levelSplitFrom: positiveInt(env.CRIBRA_LEVEL_SPLIT_FROM, 41, 'CRIBRA_LEVEL_SPLIT_FROM'),
+    levelSplitChunks: positiveInt(env.CRIBRA_LEVEL_SPLIT_CHUNKS, 32, 'CRIBRA_LEVEL_SPLIT_CHUNKS'),
     testPauseMs:
       cribraEnv === 'test' && env.CRIBRA_RUNNER_TEST_PAUSE_MS
         ? positiveInt(env.CRIBRA_RUNNER_TEST_PAUSE_MS, 0, 'CRIBRA_RUNNER_TEST_PAUSE_MS')

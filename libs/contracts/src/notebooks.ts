@@ -367,6 +367,14 @@ export interface WheelLevelSummary {
   engineVersion: string | null;
 }
 
+/** Deepest wheel level the runners compute and store. */
+export const MAX_STORED_LEVEL = 47;
+/**
+ * Stored levels from this prime on are computed by the split route: chunks of the members of a
+ * base level (19# up to 43#, 23# for 47#), each adding counts of every gap; no pattern tallies.
+ */
+export const SPLIT_ROUTE_FROM = 41;
+
 export interface WheelLevelView extends WheelLevelSummary {
   histogram: GapCount[];
   patternTallies: PatternTally[];

@@ -35,6 +35,11 @@ export interface LevelChunkJob {
    */
   quadsOf?: number;
   radix?: number;
+  /**
+   * Split route: the chunk is `index` of `chunks` groups of the members of level `base`; it yields
+   * partial counts of every gap of `prime` (the combine step adds them and checks the identities).
+   */
+  split?: boolean;
 }
 export interface LedgerBlockJob {
   computationId: string | null;

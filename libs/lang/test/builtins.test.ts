@@ -94,10 +94,17 @@ const cases: Record<string, () => void> = {
     expect(value('[wheelsize(p) : p ∈ primes 2..29]')).toBe('[1, 2, 8, 48, 480, 5760, 92160, 1658880, 36495360, 1021870080]'); // OEIS A005867
     expect(value('wheelsize(1009)')).toBe(primorialTotient(1009).toString());
   },
-  jacobsthal: () => expect(value('[jacobsthal(p) : p ∈ primes 2..23]')).toBe('[2, 4, 6, 10, 14, 22, 26, 34, 40]'), // OEIS A048670 (from memory)
+  jacobsthal: () => {
+    expect(value('[jacobsthal(p) : p ∈ primes 2..23]')).toBe('[2, 4, 6, 10, 14, 22, 26, 34, 40]'); // OEIS A048670 (from memory)
+    expect(value('[jacobsthal(37), jacobsthal(41), jacobsthal(43)]')).toBe('[66, 74, 90]'); // OEIS A048670, by the split route in the cell
+  },
   gaps: () => {
     expect(table('gaps(5)').rows).toEqual([['2', '3'], ['4', '3'], ['6', '2']]); // members 1,7,11,13,17,19,23,29 of 5#
     expect(table('gaps(19)').rows).toEqual([...gapHistogram(19)].map(([g, n]) => [String(g), String(n)]));
+    // 41# computed in the cell (split route): n2 = ∏_{3 ≤ q ≤ 41}(q − 2) (OEIS A059861), Σ counts = φ(41#) (OEIS A005867)
+    const t41 = table('gaps(41)').rows;
+    expect(t41[0]).toEqual(['2', String([3, 5, 7, 11, 13, 17, 19, 23, 29, 31, 37, 41].reduce((a, q) => a * BigInt(q - 2), 1n))]);
+    expect(t41.reduce((a, r) => a + BigInt(r[1]!), 0n)).toBe(44144787456000n);
   },
   gapcount: () => {
     expect(value('[gapcount(6, p) : p ∈ primes 5..13]')).toBe('[2, 14, 142, 1690]'); // OEIS A271564

@@ -30,7 +30,7 @@ export class LevelsController {
 
   @Post(':prime/computations')
   @HttpCode(202)
-  @ApiOperation({ summary: 'Request a level to be computed by the runners (chunked; up to 41#)' })
+  @ApiOperation({ summary: 'Request a level to be computed by the runners (chunked; up to 47#)' })
   request(@CurrentUser() user: UserEntity, @Param('prime', primeParam) prime: number): Promise<ComputationView> {
     return this.levels.request(user, prime);
   }

@@ -1,11 +1,11 @@
 import type { DataSource } from 'typeorm';
 import type PgBoss from 'pg-boss';
 import { checkLevel, EngineError, primorial, primorialTotient } from '@cribra/engine';
-import { LEDGER_BLOCK_SIZE, LEDGER_MAX_END, QUEUES, type PlanJob } from '@cribra/contracts';
+import { LEDGER_BLOCK_SIZE, LEDGER_MAX_END, MAX_STORED_LEVEL, QUEUES, type PlanJob } from '@cribra/contracts';
 import { jobOptions } from './queue-options';
 
-/** Deepest wheel level a runner can stream (the engine's MAX_STREAM_LEVEL). */
-export const MAX_REQUESTABLE_LEVEL = 41;
+/** Deepest wheel level the runners compute (the engine's SPLIT_MAX_LEVEL: 37# … 47# by the split route). */
+export const MAX_REQUESTABLE_LEVEL = MAX_STORED_LEVEL;
 
 /** A request that cannot be honoured; the caller turns it into a 400 with this message. */
 export class ComputationRequestError extends Error {

@@ -1,6 +1,7 @@
 // `npm run bench [-- FILTER]`: runs the benchmark areas and prints one table of figures.
 // Each area module exports one async function returning rows { name, figure } and prints nothing.
 import { benchLedger } from './ledger.bench';
+import { benchClosedForms, benchLevels } from './levels.bench';
 import { benchNarrow, benchNarrowSearch } from './narrow.bench';
 import { benchSieve } from './sieve.bench';
 import { benchSieveProcess } from './sieve-process.bench';
@@ -13,6 +14,8 @@ export interface BenchRow {
 
 const AREAS: ReadonlyArray<{ area: string; run: () => Promise<readonly BenchRow[]>; onlyByName?: boolean }> = [
   { area: 'wheel', run: benchWheel },
+  { area: 'wheel-levels', run: benchLevels },
+  { area: 'closed-forms', run: benchClosedForms },
   { area: 'sieve', run: benchSieve },
   { area: 'sieve-process', run: benchSieveProcess },
   { area: 'ledger', run: benchLedger },

@@ -1,8 +1,12 @@
 import { createHash } from 'node:crypto';
 import {
   chunkCopies,
+  combineSplitChunks,
+  checkedHistogram,
   combineWheelChunks,
+  defaultSplitBase,
   histogramFromDense,
+  histogramMaxGap,
   levelFromQuadTally,
   levelQuadTallyChunk,
   MAX_MEMORY_LEVEL,
@@ -11,14 +15,21 @@ import {
   previousPrime,
   primorial,
   primorialTotient,
+  planSplitChunks,
   quadTallyRadix,
+  runSplitChunk,
   runWheelChunk,
+  splitChunkResultFromJson,
+  splitChunkResultToJson,
+  splitHistogramsFromResult,
+  SPLIT_MAX_LEVEL,
   wheelChunkTallyFromJson,
   wheelChunkTallyToJson,
   wheelGaps,
   wheelLevelStats,
   type GapHistogram,
   type PatternTally as EnginePatternTally,
+  type SplitChunkResultJson,
   type WheelChunkTally,
   type WheelChunkTallyJson,
 } from '@cribra/engine';
@@ -32,8 +43,12 @@ export const SMALL_LEVEL_PATTERN_LENGTHS = [2, 3] as const;
 export const STREAMED_PATTERN_LENGTH = 2;
 /** Base-cycle steps per chunk job by default (a few seconds of one core). */
 export const STEPS_PER_CHUNK = 1e9;
-/** Chunked levels from this prime on take the recursion route by default (29#, 31#, 37#, 41#). */
+/** Chunked levels from this prime on take the recursion route by default (29#, 31#, 37#: they keep pair tallies). */
 export const RECURSION_FROM = 29;
+/** Levels from this prime on take the split route by default (41# … 47#: histograms only). */
+export const SPLIT_FROM = 41;
+/** Chunk jobs of a split-route level by default (47#: about 0.15 s of one core each, as measured). */
+export const SPLIT_CHUNKS = 32;
 
 /**
  * How a level is split: in one piece (base null); streamed over `base` in `chunks` chunks; or, with
@@ -45,6 +60,8 @@ export interface LevelPlan {
   chunks: number;
   quadsOf?: number;
   radix?: number;
+  /** split route: chunk i is group i of `chunks` groups of the members of level `base` */
+  split?: boolean;
 }
 
 function chunkCount(base: number, target: number, stepsPerChunk: number): number {
@@ -63,7 +80,14 @@ function chunkCount(base: number, target: number, stepsPerChunk: number): number
  */
 export function planLevel(
   prime: number, onePieceUpTo = IN_ONE_PIECE_UP_TO, stepsPerChunk = STEPS_PER_CHUNK, recursionFrom = RECURSION_FROM,
+  splitFrom = SPLIT_FROM, splitChunks = SPLIT_CHUNKS,
 ): LevelPlan {
+  // The split route from `splitFrom` on (at least 7: its base is the level two primes below, ≥ 3);
+  // beyond 41 it is the only route (the others would stream 10^12 members or more).
+  if ((prime >= Math.max(splitFrom, 7) || prime > 41) && prime <= SPLIT_MAX_LEVEL) {
+    const base = defaultSplitBase(prime);
+    return { base, chunks: planSplitChunks(base, [prime], splitChunks).length, split: true };
+  }
   if (prime <= Math.min(onePieceUpTo, IN_ONE_PIECE_UP_TO) || prime < 5) return { base: null, chunks: 1 };
   if (prime >= Math.max(recursionFrom, 7)) {
     const q = previousPrime(prime);
@@ -82,6 +106,8 @@ export type ChunkSummaryJson =
   | { kind: 'stats'; prime: number; histogram: GapCount[]; largestGap: number; patternTallies: PatternTally[] }
   /** Recursion route: the quadruple tally of the level before over this chunk. */
   | { kind: 'quads'; prime: number; quadsOf: number; tally: WheelChunkTallyJson }
+  /** Split route: partial counts of every gap of the level over one group of base members. */
+  | { kind: 'split'; prime: number; result: SplitChunkResultJson }
   | {
       kind: 'tally';
       target: number;
@@ -119,6 +145,12 @@ function tallyList(length: number, t: EnginePatternTally): PatternTally {
 
 /** Computes chunk `index` of a level planned as `plan` with the engine. */
 export function computeLevelChunk(prime: number, index: number, plan: LevelPlan): ChunkSummaryJson {
+  if (plan.split) {
+    const specs = planSplitChunks(plan.base!, [prime], plan.chunks);
+    const spec = specs[index];
+    if (!spec || specs.length !== plan.chunks) throw new Error(`level ${prime} has no split chunk ${index} of ${plan.chunks}`);
+    return { kind: 'split', prime, result: splitChunkResultToJson(runSplitChunk(spec, wheelGaps(spec.base))) };
+  }
   if (plan.quadsOf !== undefined) {
     const t = levelQuadTallyChunk(plan.quadsOf, index, plan.chunks, plan.radix);
     return { kind: 'quads', prime, quadsOf: plan.quadsOf, tally: wheelChunkTallyToJson(t) };
@@ -182,6 +214,14 @@ export function combineLevelChunks(prime: number, chunks: ChunkSummaryJson[]): L
   if (chunks.length === 1 && chunks[0].kind === 'stats') {
     const s = chunks[0];
     body = { ...head, largestGap: s.largestGap, histogram: s.histogram, patternTallies: s.patternTallies };
+  } else if (chunks[0]?.kind === 'split') {
+    // Σ n_g = φ(p#) and Σ g·n_g = p# are checked here, before anything is stored
+    const parts = chunks.map((c) => {
+      if (c.kind !== 'split' || c.prime !== prime) throw new Error('mixed chunk kinds');
+      return splitChunkResultFromJson(c.result);
+    });
+    const histogram = splitHistogramsFromResult(combineSplitChunks(parts)).get(prime)!;
+    body = { ...head, largestGap: histogramMaxGap(histogram), histogram: histogramList(histogram), patternTallies: [] };
   } else if (chunks[0]?.kind === 'quads') {
     // Add the partial quadruple tallies one at a time (each is a dense array of (radix+1)^4 counts).
     let quads: WheelChunkTally | null = null;
@@ -205,6 +245,8 @@ export function combineLevelChunks(prime: number, chunks: ChunkSummaryJson[]): L
       patternTallies: t.patterns ? [tallyList(t.patternLength, patternsFromDense(t.patterns, t.patternLength, R, t.radix))] : [],
     };
   }
+  // whatever the route: Σ n_g = φ(p#) and Σ g·n_g = p# before the level is stored
+  checkedHistogram(prime, new Map(body.histogram.map((e) => [e.gap, BigInt(e.count)])));
   const digest = createHash('sha256').update(JSON.stringify(body)).digest('hex');
   return { ...body, digest };
 }

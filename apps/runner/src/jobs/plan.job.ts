@@ -28,8 +28,11 @@ async function sendAll(ctx: JobContext, name: string, datas: object[]): Promise<
 }
 
 async function planLevel(ctx: JobContext, id: string, prime: number): Promise<void> {
-  const { base, chunks, quadsOf, radix } = planLevelChunks(prime, ctx.cfg.levelOnePieceUpTo, ctx.cfg.levelStepsPerChunk, ctx.cfg.levelRecursionFrom);
-  const route = quadsOf === undefined ? {} : { quadsOf, radix };
+  const { cfg } = ctx;
+  const { base, chunks, quadsOf, radix, split } = planLevelChunks(
+    prime, cfg.levelOnePieceUpTo, cfg.levelStepsPerChunk, cfg.levelRecursionFrom, cfg.levelSplitFrom, cfg.levelSplitChunks,
+  );
+  const route = split ? { split: true } : quadsOf === undefined ? {} : { quadsOf, radix };
   await ctx.db.query(
     `UPDATE computations SET chunks_total = $2, status = 'running', started_at = coalesce(started_at, now()) WHERE id = $1`,
     [id, chunks],
@@ -41,7 +44,9 @@ async function planLevel(ctx: JobContext, id: string, prime: number): Promise<vo
   for (let index = 0; index < chunks; index++) if (!done.has(index)) jobs.push({ computationId: id, prime, index, chunks, base, ...route });
   if (jobs.length) await sendAll(ctx, QUEUES.levelChunk, jobs);
   else await sendCombine(ctx, id);
-  const how = quadsOf === undefined ? (base === null ? 'in one piece' : `streamed over ${base}#`) : `by recursion from the quadruples of ${quadsOf}# over ${base}#`;
+  const how = split
+    ? `by the split route over the members of ${base}#`
+    : quadsOf === undefined ? (base === null ? 'in one piece' : `streamed over ${base}#`) : `by recursion from the quadruples of ${quadsOf}# over ${base}#`;
   ctx.log(`level ${prime}#: ${chunks} chunk(s) planned, ${how}`);
 }
 

@@ -83,11 +83,18 @@ function signedSums(gaps: readonly number[], upTo: number): Map<number, bigint> 
     }
     let prod = sign;
     for (let i = 0; i < Q; i++) prod *= qs[i]! - nu[i]!;
-    const a = acc[size]! + prod; // |prod| < 2^31 (q < 60), |acc| ≤ 2^52: exact
-    if (Math.abs(a) > 2 ** 52) {
-      big[size] = big[size]! + BigInt(a);
-      acc[size] = 0;
-    } else acc[size] = a;
+    if (Math.abs(prod) >= 2 ** 52) {
+      // 14 or more primes (spans ≥ 94): the product can pass 2^53, where doubles round; redo it exactly
+      let exact = BigInt(sign);
+      for (let i = 0; i < Q; i++) exact *= BigInt(qs[i]! - nu[i]!);
+      big[size] = big[size]! + exact;
+    } else {
+      const a = acc[size]! + prod; // |prod| < 2^52, |acc| ≤ 2^52: the sum is exact
+      if (Math.abs(a) > 2 ** 52) {
+        big[size] = big[size]! + BigInt(a);
+        acc[size] = 0;
+      } else acc[size] = a;
+    }
     for (let c = start; c < cands.length; c++) {
       const r = resid[c]!;
       let full = false;
@@ -139,6 +146,11 @@ export function patternClosedForm(gaps: readonly number[]): ClosedForm {
 }
 
 const formCache = new Map<string, ClosedForm>();
+
+/** Drops the cached closed forms (benchmarks measure each count from a cold cache). */
+export function clearClosedFormCache(): void {
+  formCache.clear();
+}
 
 function buildClosedForm(gaps: readonly number[]): ClosedForm {
   const D = gaps.reduce((a, b) => a + b, 0);

@@ -3,6 +3,7 @@ import fc from 'fast-check';
 import { EngineError } from '../errors';
 import { isAdmissible } from '../tuple/admissibility';
 import { cycleHistogramAndPairSums } from '../wheel/scan';
+import { gapHistogram } from '../wheel/level';
 import { wheelGaps, wheelMembers } from '../wheel/level-gaps';
 import { primorial, primorialTotient } from '../wheel/primorial';
 import {
@@ -105,8 +106,11 @@ describe('closed forms of consecutive gap counts', () => {
 });
 
 describe('histograms from counts alone', () => {
-  it('equal the enumerated histograms at 17#, 19# and 23#', () => {
-    for (const p of [17, 19, 23]) expect(histogramByCounts(p)).toEqual(hist(p));
+  it('equal the enumerated histograms at every level 3 … 23', () => {
+    for (const p of LEVELS) expect(histogramByCounts(p)).toEqual(hist(p));
+  });
+  it('equal the histogram recursion at 29# and 31# (two code paths; 37# against the split route in split-counts.test.ts)', () => {
+    for (const p of [29, 31]) expect(histogramByCounts(p)).toEqual(gapHistogram(p));
   });
   it('sum to φ(p#) and p# at 37# (largest gap 66)', () => {
     const h = histogramByCounts(37);

@@ -3,3 +3,5 @@
 export * from './occurrences';
 export * from './closed-form';
 export * from './enumerated';
+export * from './split-window';
+export * from './split-counts';

@@ -4,3 +4,4 @@ export * from './wheel-pool';
 export * from './sieve-parallel';
 export * from './narrow-parallel';
 export * from './wasm-kernel';
+export * from './split-pool';

@@ -1,13 +1,18 @@
 import {
-  gapHistogram, type GapHistogram, primorialTotient, wheelLevelStats, wheelMembers, checkLevel, primorial,
+  checkedHistogram, gapHistogram, type GapHistogram, primorialTotient, wheelLevelStats, wheelMembers, checkLevel, primorial, splitHistograms,
+  SPLIT_MAX_LEVEL,
 } from '@cribra/engine';
 import { domainError, limitError } from '../errors';
 import type { StoredLevel } from '../provider/types';
 import { SiftRecord, Table, type Value } from '../values/types';
 import { argInt, argSeries, argSmall, type Builtin, type CallContext, defineBuiltins } from './registry';
 
-/** Deepest level computed on demand inside a cell (31# streams 29#, a few seconds); deeper ones must be stored. */
-export const MAX_COMPUTED_LEVEL = 31;
+/** Deepest level whose histogram is computed by the recursions inside a cell (31#: a few seconds). */
+export const MAX_RECURSION_LEVEL = 31;
+/** Deepest level computed on demand inside a cell: 37# … 47# by the split route; deeper ones must be stored. */
+export const MAX_COMPUTED_LEVEL = SPLIT_MAX_LEVEL;
+/** Split-route base up to 43# (19#: 1 658 880 members; 41# under a second, 43# about one); 47# uses 23#. */
+const SMALL_SPLIT_BASE = 19;
 /** Deepest level whose first positions and pattern tallies are computed on demand. */
 export const MAX_STATS_LEVEL = 29;
 
@@ -26,13 +31,14 @@ export function levelHistogram(c: CallContext, p: number, fn: string): GapHistog
   const s = stored(c, p);
   if (s) return new Map(s.histogram.map((e) => [e.gap, e.count]));
   if (p > MAX_COMPUTED_LEVEL) {
-    throw limitError(`${fn}: level ${p} is not stored, and levels above ${MAX_COMPUTED_LEVEL} are too large to compute inside a cell; compute it as a stored level first`, c.span);
+    throw limitError(`${fn}: level ${p} is not stored, and the engine computes gap histograms up to level ${MAX_COMPUTED_LEVEL}`, c.span);
   }
   const hit = computed.get(p);
   if (hit) return hit;
   const work = c.work(`gap histogram of level ${p}`);
   work.onProgress?.(0);
-  const h = gapHistogram(p, undefined, work);
+  // Σ n_g = φ(p#) and Σ g·n_g = p# checked before the histogram is used (stored levels were checked when stored)
+  const h = checkedHistogram(p, p <= MAX_RECURSION_LEVEL ? gapHistogram(p, undefined, work) : splitHistograms([p], p <= 43 ? SMALL_SPLIT_BASE : 23, work).get(p)!);
   computed.set(p, h);
   c.progress(1, `gap histogram of level ${p}`);
   return h;
@@ -71,14 +77,14 @@ const wheel: Builtin[] = [
   },
   {
     name: 'jacobsthal', area: 'wheel', minArgs: 1, maxArgs: 1,
-    signature: 'jacobsthal(p) → integer', doc: 'The largest gap of level p, i.e. the Jacobsthal function of p#.',
+    signature: 'jacobsthal(p) → integer', doc: 'The largest gap of level p (the largest gap with a non-zero count), i.e. the Jacobsthal function of p#.',
     example: { source: 'jacobsthal(13)', result: '22' },
     call: (a, c) => BigInt(maxGap(levelHistogram(c, levelArg(a, 0, c, 'jacobsthal'), 'jacobsthal'))),
   },
   {
     name: 'gaps', area: 'wheel', minArgs: 1, maxArgs: 1,
     signature: 'gaps(p) → table (gap, count)',
-    doc: 'Gap histogram of level p over one period (stored levels are read, levels ≤ 31 computed).',
+    doc: 'Gap histogram of level p over one period (stored levels are read, levels ≤ 47 computed).',
     example: { source: 'gaps(5)', result: 'table (gap, count): (2, 3), (4, 3), (6, 2)' },
     call: (a, c) => histogramTable(levelHistogram(c, levelArg(a, 0, c, 'gaps'), 'gaps')),
   },

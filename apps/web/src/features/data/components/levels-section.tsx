@@ -7,6 +7,7 @@ import { errorMessage } from '../../../lib/api-error';
 import { groupDigits } from '../../../lib/format';
 import { useLevels } from '../api/list-levels';
 import { useRequestLevel } from '../api/request-level';
+import { levelPlan } from '../lib/level-plan';
 import { nextLevelPrime } from '../lib/next-level';
 
 function Progress({ level }: { level: WheelLevelSummary }) {
@@ -31,12 +32,18 @@ export function LevelsSection({ selected, onSelect }: Props) {
   if (levels.isPending) return <LoadingState label="Loading wheel levels…" />;
   if (levels.isError) return <ErrorState error={levels.error} title="Could not load wheel levels" onRetry={() => levels.refetch()} />;
   const next = nextLevelPrime(levels.data);
+  const plan = levelPlan(next);
   return (
     <Box component="section" aria-labelledby="levels-heading">
       <Box sx={{ display: 'flex', alignItems: 'center', mb: 1, gap: 2 }}>
         <Typography id="levels-heading" variant="h3" component="h2" sx={{ flex: 1 }}>Stored wheel levels</Typography>
-        <Button variant="contained" onClick={() => request.mutate(next)} disabled={request.isPending}>Compute level {next}</Button>
+        {plan ? (
+          <Button variant="contained" onClick={() => request.mutate(next)} disabled={request.isPending}>Compute level {next}</Button>
+        ) : (
+          <Typography variant="body2">Every level the runners compute (to 47) has been asked for.</Typography>
+        )}
       </Box>
+      {plan && <Typography variant="caption" component="p" sx={{ mb: 1 }}>{plan}</Typography>}
       {request.isError && <Alert severity="error" sx={{ mb: 1 }}>{errorMessage(request.error)}</Alert>}
       {levels.data.length === 0 ? (
         <EmptyState title="No wheel level stored yet">Ask for level 2 to start; each level p holds the reduced residue system modulo p#.</EmptyState>
