@@ -15,6 +15,8 @@ export interface RunnerConfig {
   /** How often this runner runs pg-boss maintenance (expiring jobs of dead runners). */
   maintenanceSeconds: number;
   heartbeatMs: number;
+  /** A runner silent for this long is presumed dead; a live runner takes its work over. */
+  deadAfterSeconds: number;
   /** On SIGTERM/SIGINT: how long running jobs may finish before they are handed back. */
   stopGraceMs: number;
   pollMs: number;
@@ -50,6 +52,7 @@ export function readRunnerConfig(env: NodeJS.ProcessEnv = process.env): RunnerCo
     jobExpireSeconds: positiveInt(env.CRIBRA_JOB_EXPIRE_SECONDS, QUEUE_DEFAULT_EXPIRE_SECONDS, 'CRIBRA_JOB_EXPIRE_SECONDS'),
     maintenanceSeconds: positiveInt(env.CRIBRA_QUEUE_MAINTENANCE_SECONDS, 30, 'CRIBRA_QUEUE_MAINTENANCE_SECONDS'),
     heartbeatMs: positiveInt(env.CRIBRA_RUNNER_HEARTBEAT_MS, 5000, 'CRIBRA_RUNNER_HEARTBEAT_MS'),
+    deadAfterSeconds: positiveInt(env.CRIBRA_RUNNER_DEAD_AFTER_SECONDS, 30, 'CRIBRA_RUNNER_DEAD_AFTER_SECONDS'),
     stopGraceMs: positiveInt(env.CRIBRA_RUNNER_STOP_GRACE_MS, 10_000, 'CRIBRA_RUNNER_STOP_GRACE_MS'),
     pollMs: positiveInt(env.CRIBRA_RUNNER_POLL_MS, 500, 'CRIBRA_RUNNER_POLL_MS'),
     levelOnePieceUpTo: positiveInt(env.CRIBRA_LEVEL_ONE_PIECE_UP_TO, 23, 'CRIBRA_LEVEL_ONE_PIECE_UP_TO'),

@@ -317,8 +317,12 @@ export interface RunnerView {
   currentJob: string | null;
   jobsDone: number;
   stoppedAt: string | null;
-  /** Not stopped and seen within the last 30 seconds. */
+  /** Not stopped, not taken over and seen within the last 30 seconds. */
   alive: boolean;
+  /** When a live runner took its work over after its heartbeat stopped (null: never). */
+  takenOverAt?: string | null;
+  /** The runner that took its work over. */
+  takenOverBy?: string | null;
 }
 
 // ---------------------------------------------------------------- stored wheel levels
