@@ -17,6 +17,17 @@ describe('upload parser', () => {
     if (!out.ok) expect(out.errors.map((e) => e.line)).toEqual([3, 5]);
   });
 
+  it('refuses a repeated value with the lines of both occurrences (a tuple is a set)', () => {
+    const out = parseTuples('# admissible offsets\n0\n2\n6\n+2\n8\n006\n');
+    expect(out.ok).toBe(false);
+    if (!out.ok) {
+      expect(out.errors).toEqual([
+        { line: 5, message: '2 appears on lines 3 and 5 (the values of a tuple are distinct)' },
+        { line: 7, message: '6 appears on lines 4 and 7 (the values of a tuple are distinct)' },
+      ]);
+    }
+  });
+
   it('refuses a file without integers', () => {
     expect(parseTuples('# nothing\n\n').ok).toBe(false);
   });

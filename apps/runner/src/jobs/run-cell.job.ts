@@ -1,4 +1,4 @@
-import { QUEUES, type RunCellJob, type LedgerComputationBody } from '@cribra/contracts';
+import { QUEUES, type RunCellJob, type LedgerComputationBody, type RunError } from '@cribra/contracts';
 import { PgDataProvider } from '../data/pg-data-provider';
 import { requestLedgerComputation } from '../data/ledger-requests';
 import { sleep, type JobContext, type JobHandler } from '../job-context';
@@ -78,12 +78,29 @@ export const runCell: JobHandler<RunCellJob> = async (ctx, job) => {
   } finally {
     clearInterval(watch);
   }
+  result = withinOutputLimit(result, cfg.runOutputMaxBytes);
   const failed = result.error !== null;
   const done = await storeResult(db, runId, cfg.runnerId, failed, result, Date.now() - started);
   if (done === 1) {
     ctx.log(`run ${runId} ${failed ? 'failed' : 'succeeded'} in ${Date.now() - started} ms (attempt job ${job.id})`);
   }
 };
+
+/**
+ * Checked before storing: outputs above the per-run byte limit (their JSON as stored) are not
+ * stored; the run fails with a limit error naming both sizes. One run of 33.7 MB used to make
+ * every read of its notebook 33.7 MB.
+ */
+export function withinOutputLimit(result: SiftResult, maxBytes: number): SiftResult {
+  const size = Buffer.byteLength(JSON.stringify(result.outputs), 'utf8');
+  if (size <= maxBytes) return result;
+  const error: RunError = {
+    kind: 'limit',
+    message: `the outputs of this run take ${size} bytes, above the limit of ${maxBytes} bytes per run; show fewer or smaller values (a table of summaries, a count, a digest)`,
+    limit: { name: 'run_output_bytes', maxBytes, sizeBytes: size },
+  };
+  return { ...result, outputs: [], digest: null, error };
+}
 
 /**
  * SQLSTATE classes of a result the database will never accept however often it is retried
