@@ -260,4 +260,30 @@ describe('queue and runners', () => {
     // Jacobsthal function of 19#: the largest gap of level 19 is 34 (OEIS A048670; value from memory).
     expect(level.largestGap).toBe(34);
   }, 90_000);
+
+  it('serves people fairly: another person\'s single run goes before the rest of one person\'s flood', async () => {
+    await stack.stopRunnersNamed(['level-f', 'level-g']);
+    const other = await person(stack.app, 'qother');
+    const nb = await createNotebook(owner);
+    const flood = await addCell(owner, nb.id, 'primorial(11)');
+    const theirs = await createNotebook(other);
+    const light = await addCell(other, theirs.id, 'primorial(13)');
+    // No runner yet: the flood of 6 runs is queued first, then the other person's one run.
+    const floodRuns: RunView[] = [];
+    for (let i = 0; i < 6; i++) floodRuns.push((await owner.client.call('post', `/api/cells/${flood.id}/runs`)).body as RunView);
+    const single = (await other.client.call('post', `/api/cells/${light.id}/runs`)).body as RunView;
+    // One runner with one slot, a pause in each run: the order it takes them is the queue's order.
+    stack.startRunner('fair-a', { CRIBRA_RUNNER_TEST_PAUSE_MS: '300' });
+    const done = await finished(single.id, 'the other person\'s run', 60_000);
+    expect(done.status).toBe('succeeded');
+    const order = await sql<{ id: string }>(
+      `SELECT id FROM runs WHERE id = ANY($1::uuid[]) AND started_at IS NOT NULL ORDER BY started_at`,
+      [[...floodRuns.map((r) => r.id), single.id]],
+    );
+    const position = order.findIndex((r) => r.id === single.id);
+    // FIFO would make it the 7th; the flood's first run (priority 0) and the single run (priority 0)
+    // come before the flood's others (priorities −1 … −5).
+    expect(position).toBeLessThanOrEqual(1);
+    await stack.stopRunnersNamed(['fair-a']);
+  }, 90_000);
 });
