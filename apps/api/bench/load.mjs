@@ -149,7 +149,7 @@ async function hardening() {
 
   // (b) A notebook with one heavy run (just under the per-run output limit) read by 4 clients.
   const heavyNb = (await c.call('POST', '/api/notebooks', { title: 'Heavy outputs' })).body;
-  const heavy = (await c.call('POST', `/api/notebooks/${heavyNb.id}/cells`, { kind: 'query', source: 'let x = 2^262000\nshow [x + n : n ∈ 1..25]' })).body;
+  const heavy = (await c.call('POST', `/api/notebooks/${heavyNb.id}/cells`, { kind: 'query', source: 'let x = 2^130000\nshow [x + n : n ∈ 1..50]' })).body;
   const hr = await waitRunDone(c, (await c.call('POST', `/api/cells/${heavy.id}/runs`)).body.id);
   const full = await c.call('GET', `/api/runs/${hr.id}`);
   const readBytes = [];

@@ -274,7 +274,14 @@ describe('queue and runners', () => {
     const single = (await other.client.call('post', `/api/cells/${light.id}/runs`)).body as RunView;
     // One runner with one slot, a pause in each run: the order it takes them is the queue's order.
     stack.startRunner('fair-a', { CRIBRA_RUNNER_TEST_PAUSE_MS: '300' });
-    const done = await finished(single.id, 'the other person\'s run', 60_000);
+    const done = await waitFor(
+      'the other person\'s run',
+      async () => {
+        const [r] = await sql<{ status: string }>(`SELECT status FROM runs WHERE id = $1`, [single.id]);
+        return r.status === 'succeeded' || r.status === 'failed' ? r : undefined;
+      },
+      60_000,
+    );
     expect(done.status).toBe('succeeded');
     const order = await sql<{ id: string }>(
       `SELECT id FROM runs WHERE id = ANY($1::uuid[]) AND started_at IS NOT NULL ORDER BY started_at`,

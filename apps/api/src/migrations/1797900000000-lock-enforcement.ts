@@ -25,7 +25,7 @@ export class LockEnforcement1797900000000 implements MigrationInterface {
 
   async up(q: QueryRunner): Promise<void> {
     await q.query(`
-      CREATE FUNCTION cribra_may_bypass_lock(rel oid) RETURNS boolean LANGUAGE sql STABLE AS $$
+      CREATE FUNCTION cribra_guard_may_bypass(rel oid) RETURNS boolean LANGUAGE sql STABLE AS $$
         SELECT coalesce(current_setting('cribra.allow_locked_changes', true), '') = 'on'
            AND pg_has_role(current_user, (SELECT relowner FROM pg_class WHERE oid = rel), 'MEMBER')
       $$`);
@@ -37,7 +37,7 @@ export class LockEnforcement1797900000000 implements MigrationInterface {
         nb_status varchar;
         locked timestamptz;
       BEGIN
-        IF cribra_may_bypass_lock(TG_RELID) THEN
+        IF cribra_guard_may_bypass(TG_RELID) THEN
           IF TG_OP = 'DELETE' THEN RETURN OLD; END IF;
           RETURN NEW;
         END IF;
@@ -74,7 +74,7 @@ export class LockEnforcement1797900000000 implements MigrationInterface {
     await q.query(`
       CREATE OR REPLACE FUNCTION cribra_guard_locked_notebook() RETURNS trigger LANGUAGE plpgsql AS $$
       BEGIN
-        IF OLD.status = 'locked' AND NOT cribra_may_bypass_lock(TG_RELID) THEN
+        IF OLD.status = 'locked' AND NOT cribra_guard_may_bypass(TG_RELID) THEN
           RAISE EXCEPTION 'notebook % is locked: % refused', OLD.id, TG_OP
             USING ERRCODE = 'CRLCK', HINT = 'Duplicate the notebook to make changes.';
         END IF;
@@ -82,18 +82,18 @@ export class LockEnforcement1797900000000 implements MigrationInterface {
         RETURN NEW;
       END $$`);
     await q.query(`
-      CREATE FUNCTION cribra_refuse_truncate() RETURNS trigger LANGUAGE plpgsql AS $$
+      CREATE FUNCTION cribra_guard_no_truncate() RETURNS trigger LANGUAGE plpgsql AS $$
       BEGIN
-        IF NOT cribra_may_bypass_lock(TG_RELID) THEN
+        IF NOT cribra_guard_may_bypass(TG_RELID) THEN
           RAISE EXCEPTION 'TRUNCATE on % refused: it would bypass the lock of locked notebooks', TG_TABLE_NAME
             USING ERRCODE = 'CRLCK', HINT = 'Delete rows instead.';
         END IF;
         RETURN NULL;
       END $$`);
     await q.query(`
-      CREATE FUNCTION cribra_run_purpose_fixed() RETURNS trigger LANGUAGE plpgsql AS $$
+      CREATE FUNCTION cribra_guard_run_purpose() RETURNS trigger LANGUAGE plpgsql AS $$
       BEGIN
-        IF NEW.purpose IS DISTINCT FROM OLD.purpose AND NOT cribra_may_bypass_lock(TG_RELID) THEN
+        IF NEW.purpose IS DISTINCT FROM OLD.purpose AND NOT cribra_guard_may_bypass(TG_RELID) THEN
           RAISE EXCEPTION 'the purpose of run % cannot change (% to %)', OLD.id, OLD.purpose, NEW.purpose
             USING ERRCODE = 'CRLCK';
         END IF;
@@ -101,14 +101,14 @@ export class LockEnforcement1797900000000 implements MigrationInterface {
       END $$`);
     await q.query(`
       CREATE TRIGGER runs_purpose_fixed BEFORE UPDATE OF purpose ON runs
-      FOR EACH ROW EXECUTE FUNCTION cribra_run_purpose_fixed()`);
+      FOR EACH ROW EXECUTE FUNCTION cribra_guard_run_purpose()`);
     await q.query(`
       CREATE TRIGGER uploads_guard_locked BEFORE INSERT OR UPDATE OR DELETE ON uploads
       FOR EACH ROW EXECUTE FUNCTION cribra_guard_locked()`);
     for (const table of NO_TRUNCATE) {
       await q.query(`
         CREATE TRIGGER ${table}_no_truncate BEFORE TRUNCATE ON ${table}
-        FOR EACH STATEMENT EXECUTE FUNCTION cribra_refuse_truncate()`);
+        FOR EACH STATEMENT EXECUTE FUNCTION cribra_guard_no_truncate()`);
     }
   }
 
@@ -116,8 +116,8 @@ export class LockEnforcement1797900000000 implements MigrationInterface {
     for (const table of [...NO_TRUNCATE].reverse()) await q.query(`DROP TRIGGER ${table}_no_truncate ON ${table}`);
     await q.query(`DROP TRIGGER uploads_guard_locked ON uploads`);
     await q.query(`DROP TRIGGER runs_purpose_fixed ON runs`);
-    await q.query(`DROP FUNCTION cribra_run_purpose_fixed()`);
-    await q.query(`DROP FUNCTION cribra_refuse_truncate()`);
+    await q.query(`DROP FUNCTION cribra_guard_run_purpose()`);
+    await q.query(`DROP FUNCTION cribra_guard_no_truncate()`);
     // The functions as migration 1796300000000 created them.
     await q.query(`
       CREATE OR REPLACE FUNCTION cribra_guard_locked() RETURNS trigger LANGUAGE plpgsql AS $$
@@ -158,6 +158,6 @@ export class LockEnforcement1797900000000 implements MigrationInterface {
         IF TG_OP = 'DELETE' THEN RETURN OLD; END IF;
         RETURN NEW;
       END $$`);
-    await q.query(`DROP FUNCTION cribra_may_bypass_lock(oid)`);
+    await q.query(`DROP FUNCTION cribra_guard_may_bypass(oid)`);
   }
 }

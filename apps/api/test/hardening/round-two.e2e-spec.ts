@@ -65,7 +65,7 @@ describe('uploads', () => {
   it('exports an uploaded table to CSV with formula-leading fields neutralised (a leading quote)', async () => {
     const nb = await createNotebook(owner);
     created.push(nb.id);
-    const res = await upload(nb.id, 'p,note\n5,=HYPERLINK("http://x")\n-7,@SUM(A1)\n11,+1+1\n', 'evil.csv', 'text/csv');
+    const res = await upload(nb.id, 'p,note\n5,"=HYPERLINK(""http://x"")"\n-7,@SUM(A1)\n11,+1+1\n', 'evil.csv', 'text/csv');
     expect(res.status).toBe(201);
     const csv = await owner.client.call('get', `/api/uploads/${res.body.id}/export?format=csv`);
     expect(csv.status).toBe(200);
