@@ -1,4 +1,4 @@
-import { decodeText, kindOf, parseTable, parseTuples } from './upload-parser';
+import { MAX_ROWS, decodeText, kindOf, parseTable, parseTuples } from './upload-parser';
 
 describe('upload parser', () => {
   it('reads one integer per line with comments and blank lines', () => {
@@ -26,6 +26,12 @@ describe('upload parser', () => {
         { line: 7, message: '6 appears on lines 4 and 7 (the values of a tuple are distinct)' },
       ]);
     }
+  });
+
+  it('refuses a table with more than MAX_ROWS rows, naming the first row past the limit', () => {
+    const out = parseTable('n\n' + '7\n'.repeat(MAX_ROWS + 50));
+    expect(out).toEqual({ ok: false, errors: [{ line: MAX_ROWS + 2, message: `more than ${MAX_ROWS} rows` }] });
+    expect(parseTable('n\n' + '7\n'.repeat(MAX_ROWS)).ok).toBe(true);
   });
 
   it('refuses a file without integers', () => {

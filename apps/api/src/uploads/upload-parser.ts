@@ -66,7 +66,8 @@ export function parseTuples(text: string): ParseOutcome {
 export function parseTable(text: string): ParseOutcome {
   let records: Array<{ record: string[]; info: { lines: number } }>;
   try {
-    records = parse(text, { bom: true, skip_empty_lines: true, trim: true, info: true, relax_column_count: true }) as never;
+    // Stops after the header and MAX_ROWS + 1 rows: a file with more is refused without parsing the rest.
+    records = parse(text, { bom: true, skip_empty_lines: true, trim: true, info: true, relax_column_count: true, to: MAX_ROWS + 2 }) as never;
   } catch (err) {
     const e = err as { message?: string; lines?: number };
     return { ok: false, errors: [{ line: e.lines ?? 1, message: (e.message ?? 'not a valid CSV file').replace(/^Invalid .*?: /, '') }] };
