@@ -38,7 +38,7 @@ export default defineConfig({
           globalSetup: ['libs/engine/test/global-setup.ts'],
           root: here('.'),
           environment: 'node',
-          include: ['libs/*/src/**/*.test.ts', 'libs/*/test/**/*.test.ts', 'apps/cli/src/**/*.test.ts', 'apps/cli/test/**/*.test.ts'],
+          include: ['libs/*/src/**/*.test.ts', 'libs/*/test/**/*.test.ts', 'apps/cli/src/**/*.test.ts', 'apps/cli/test/**/*.test.ts', 'apps/launcher/test/**/*.test.mjs'],
           testTimeout: 60_000,
         },
       },

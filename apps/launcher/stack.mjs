@@ -3,6 +3,7 @@ import { existsSync, readdirSync, statSync } from 'node:fs';
 import { join } from 'node:path';
 import { ROOT, LaunchError, requireFreePorts, run, startService, step, stopService, waitForHttp, warn } from './common.mjs';
 import { cluster, ensurePostgresBinaries } from './postgres.mjs';
+import { supervise } from './supervisor.mjs';
 
 const node = process.execPath;
 const bin = (p) => join(ROOT, 'node_modules', p);
@@ -59,7 +60,7 @@ export async function bringUp({ ports, dataDir, dbName = 'cribra', sessionSecret
   const stop = async () => {
     if (stopped) return;
     stopped = true;
-    for (const child of [...services].reverse()) await stopService(child);
+    for (const svc of [...services].reverse()) await svc.stop();
     pg.stop();
   };
   current = stop;
@@ -69,9 +70,15 @@ export async function bringUp({ ports, dataDir, dbName = 'cribra', sessionSecret
     await pg.start();
     if (pg.createDatabase(dbName)) step(`Created database ${dbName}.`);
 
+    // Migrations, demo data and the role set-up run as the owner (postgres); the API and runners
+    // connect as the app's role, which owns nothing and is no superuser (database-enforced lock).
+    const appRole = process.env.CRIBRA_APP_ROLE ?? 'cribra_app';
+    const ownerUrl = pg.url(dbName);
+    const appUrl = Object.assign(new URL(ownerUrl), { username: appRole }).toString();
     const env = {
       ...process.env,
-      DATABASE_URL: pg.url(dbName),
+      DATABASE_URL: appUrl,
+      DATABASE_OWNER_URL: ownerUrl,
       PORT: String(ports.api),
       PUBLIC_URL: `http://127.0.0.1:${ports.api}`,
       SMTP_HOST: '127.0.0.1',
@@ -84,28 +91,31 @@ export async function bringUp({ ports, dataDir, dbName = 'cribra', sessionSecret
       ...extraEnv,
     };
 
+    const ownerEnv = { ...env, DATABASE_URL: ownerUrl };
     step('Running database migrations…');
-    run(node, ['apps/api/dist/database/migrate.js', 'up'], { env, what: 'Migrations' });
+    run(node, ['apps/api/dist/database/migrate.js', 'up'], { env: ownerEnv, what: 'Migrations' });
     step('Loading the demo data…');
-    run(node, ['apps/api/dist/demo/seed-demo.js'], { env, what: 'Loading the demo data' });
+    run(node, ['apps/api/dist/demo/seed-demo.js'], { env: ownerEnv, what: 'Loading the demo data' });
+    step(`Granting the database role ${appRole} (API and runners)…`);
+    run(node, ['apps/api/dist/database/app-role.js', appRole], { env: ownerEnv, what: 'Setting up the database role' });
 
     step(`Starting the SMTP fake (SMTP ${ports.smtp}, inbox ${ports.mailWeb})…`);
-    const mail = startService('mail', node, [
+    const mail = keepUp('mail', node, [
       bin('maildev/dist/bin/maildev.js'), '--smtp', String(ports.smtp), '--ip', '127.0.0.1',
       '--web', String(ports.mailWeb), '--web-ip', '127.0.0.1', '--silent',
     ], env);
     services.push(mail);
-    await waitForHttp(`${env.MAIL_API_URL}/api/healthz`, { child: mail, name: 'The SMTP fake', timeoutMs: 30_000 });
+    await waitForHttp(`${env.MAIL_API_URL}/api/healthz`, { child: mail.child, name: 'The SMTP fake', timeoutMs: 30_000 });
 
     step(`Starting the API on 127.0.0.1:${ports.api}…`);
-    const api = startService('api', node, ['apps/api/dist/main.js'], env);
+    const api = keepUp('api', node, ['apps/api/dist/main.js'], env);
     services.push(api);
-    await waitForHttp(`${env.PUBLIC_URL}/api/health`, { child: api, name: 'The API', timeoutMs: 60_000 });
+    await waitForHttp(`${env.PUBLIC_URL}/api/health`, { child: api.child, name: 'The API', timeoutMs: 60_000 });
 
     const runnerMain = join(ROOT, 'apps/runner/dist/main.js');
     if (withRunner && existsSync(runnerMain)) {
       step('Starting one runner…');
-      services.push(startService('runner', node, [runnerMain], env));
+      services.push(keepUp('runner', node, [runnerMain], env));
     } else if (withRunner) {
       warn('No runner yet (apps/runner/dist/main.js is missing): queued work will wait.');
     }
@@ -116,9 +126,21 @@ export async function bringUp({ ports, dataDir, dbName = 'cribra', sessionSecret
   }
 }
 
-/** Calls `onExit(child)` when any service ends on its own. */
-export function watchServices(services, onExit) {
-  for (const child of services) child.once('exit', (code, signal) => onExit(child, code, signal));
+/**
+ * Starts a service under supervision: when it exits on its own (a crash, `kill -9`) it is started
+ * again with back-off and a log line; the other services and PostgreSQL stay up. Back-off in
+ * milliseconds from CRIBRA_RESTART_INITIAL_MS (1000) doubling up to CRIBRA_RESTART_MAX_MS (30000).
+ */
+function keepUp(name, cmd, args, env) {
+  return supervise({
+    name,
+    start: () => startService(name, cmd, args, env),
+    stopChild: (child) => stopService(child),
+    log: (m) => warn(m),
+    initialMs: Number(process.env.CRIBRA_RESTART_INITIAL_MS) || 1000,
+    maxMs: Number(process.env.CRIBRA_RESTART_MAX_MS) || 30_000,
+    onRestart: () => step(`${name} started again.`),
+  });
 }
 
 export { LaunchError };

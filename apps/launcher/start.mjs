@@ -3,7 +3,7 @@ import { randomBytes } from 'node:crypto';
 import { existsSync, mkdirSync, readFileSync, writeFileSync } from 'node:fs';
 import { join } from 'node:path';
 import { ROOT, LaunchError, bold, ensureDependencies, requireFreePorts, step, warn } from './common.mjs';
-import { bringUp, build, stopCurrent, watchServices } from './stack.mjs';
+import { bringUp, build, stopCurrent } from './stack.mjs';
 
 // CRIBRA_PORT_BASE moves all four ports (e.g. 4330 → 4330–4333) when another copy already runs.
 const BASE = Number(process.env.CRIBRA_PORT_BASE ?? 4310);
@@ -77,11 +77,7 @@ async function main() {
   process.on('SIGINT', () => shutdown(0));
   process.on('SIGTERM', () => shutdown(0));
   process.on('SIGHUP', () => shutdown(0));
-  watchServices(stack.services, (child, code, signal) => {
-    if (stopping) return;
-    warn(`${child.serviceName} stopped unexpectedly (${signal ?? `exit code ${code}`}); shutting down.`);
-    shutdown(1);
-  });
+  // A service that exits on its own is restarted by its supervisor (stack.mjs); only Ctrl-C stops all.
   banner(stack.env);
 }
 

@@ -10,6 +10,10 @@
 //  3. a light cell run completed (POST, then the run read until it has succeeded on a runner) —
 //     N concurrent clients, bounded run count; and how fast the runners drained the backlog of 2.
 // The light cell is an admissibility query on a 50-tuple. Prints p50/p95/p99 and throughput.
+// `--only=hardening` runs instead the hostile-load scenarios (issue 19): the latency of an unrelated
+// list request while (a) maximal uploads are parsed, (b) a notebook with a 3.9 MB-output run is
+// read by 4 clients; and (c) fairness: how long one person's light run waits while another person
+// floods the queue with heavier runs.
 import autocannon from 'autocannon';
 import { BenchClient, admissibleTuple, fmt, summary } from './bench-client.mjs';
 
@@ -76,7 +80,122 @@ function cannon(opts) {
   });
 }
 
+/** Multipart upload through fetch (FormData); returns {status, ms}. */
+async function uploadFile(c, notebookId, name, text, type) {
+  const form = new FormData();
+  form.append('file', new Blob([text], { type }), name);
+  const t = performance.now();
+  const res = await fetch(`${BASE}/api/notebooks/${notebookId}/uploads`, {
+    method: 'POST',
+    headers: { Cookie: c.cookieHeader(), 'x-csrf-token': c.csrf },
+    body: form,
+  });
+  await res.text();
+  return { status: res.status, ms: performance.now() - t };
+}
+
+/** Latencies of GET `path` sent back to back by `clients` loops while `busy()` runs. */
+async function latencyDuring(c, path, busy, clients = 2) {
+  const times = [];
+  let done = false;
+  const probes = Array.from({ length: clients }, async () => {
+    while (!done) {
+      const t = performance.now();
+      await c.call('GET', path);
+      times.push(performance.now() - t);
+      await new Promise((r) => setTimeout(r, 20));
+    }
+  });
+  const out = await busy();
+  done = true;
+  await Promise.all(probes);
+  return { times, out };
+}
+
+async function waitRunDone(c, id, timeoutMs = 600_000) {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until) {
+    const r = await c.call('GET', `/api/runs/${id}`);
+    if (['succeeded', 'failed', 'cancelled'].includes(r.body?.status)) return r.body;
+    await new Promise((res) => setTimeout(res, 100));
+  }
+  throw new Error(`run ${id} did not finish`);
+}
+
+async function hardening() {
+  const c = new BenchClient(BASE);
+  await c.signUpFresh('hard');
+  await c.fetchCsrf();
+  const nb = (await c.call('POST', '/api/notebooks', { title: 'Hardening bench' })).body;
+  const list = '/api/notebooks?page=1&pageSize=20';
+  const rows = [];
+  const idle = await latencyDuring(c, list, () => new Promise((r) => setTimeout(r, 3000)));
+  rows.push(['list request, nothing else', summary(idle.times), '']);
+
+  // (a) Maximal uploads: 2 MiB of 10^6 one-digit rows (refused: more than 200 000 rows) and a valid
+  // 200 000-row CSV, three of each in turn.
+  const refused = 'n\n' + '7\n'.repeat(1_000_000);
+  const valid = 'n,m\n' + Array.from({ length: 200_000 }, (_, i) => `${i % 10},${i % 7}`).join('\n').slice(0, 2 * 1024 * 1024 - 10) + '\n';
+  const upl = await latencyDuring(c, list, async () => {
+    const outs = [];
+    for (let i = 0; i < 3; i++) {
+      outs.push(await uploadFile(c, nb.id, 'big.csv', refused, 'text/csv'));
+      const ok = await uploadFile(c, nb.id, `ok${i}.csv`, valid, 'text/csv');
+      outs.push(ok);
+    }
+    return outs;
+  });
+  rows.push(['list request during 6 maximal CSV uploads', summary(upl.times), `uploads ${upl.out.map((u) => `${u.status} in ${u.ms.toFixed(0)} ms`).join(', ')}`]);
+
+  // (b) A notebook with one heavy run (just under the per-run output limit) read by 4 clients.
+  const heavyNb = (await c.call('POST', '/api/notebooks', { title: 'Heavy outputs' })).body;
+  const heavy = (await c.call('POST', `/api/notebooks/${heavyNb.id}/cells`, { kind: 'query', source: 'let x = 2^130000\nshow [x + n : n ∈ 1..50]' })).body;
+  const hr = await waitRunDone(c, (await c.call('POST', `/api/cells/${heavy.id}/runs`)).body.id);
+  const full = await c.call('GET', `/api/runs/${hr.id}`);
+  const readBytes = [];
+  const heavyReads = await latencyDuring(c, list, async () => {
+    const until = Date.now() + 5000;
+    await Promise.all(Array.from({ length: 4 }, async () => {
+      while (Date.now() < until) readBytes.push((await c.call('GET', `/api/notebooks/${heavyNb.id}`)).text.length);
+    }));
+  });
+  rows.push([
+    'list request while 4 clients read a notebook with a heavy run',
+    summary(heavyReads.times),
+    `run ${hr.status}, its outputs ${full.text.length} bytes (GET /runs/:id); each notebook read ${readBytes[0]} bytes, ${readBytes.length} reads in 5 s`,
+  ]);
+
+  // (c) Fairness: person A queues 20 runs of a cell taking ~0.5–1 s; person B then runs a light cell.
+  const a = new BenchClient(BASE);
+  await a.signUpFresh('flood');
+  await a.fetchCsrf();
+  const anb = (await a.call('POST', '/api/notebooks', { title: 'Flood' })).body;
+  const slow = (await a.call('POST', `/api/notebooks/${anb.id}/cells`, { kind: 'query', source: 'show #[p ∈ primes 1..3·10^6] p mod 4 = 1' })).body;
+  const floodIds = [];
+  for (let i = 0; i < 20; i++) floodIds.push((await a.call('POST', `/api/cells/${slow.id}/runs`)).body.id);
+  const light = (await c.call('POST', `/api/notebooks/${nb.id}/cells`, { kind: 'query', source: 'show primorial(13)' })).body;
+  const t = performance.now();
+  const lr = await waitRunDone(c, (await c.call('POST', `/api/cells/${light.id}/runs`)).body.id);
+  const lightMs = performance.now() - t;
+  const floodDone = [];
+  for (const id of floodIds) floodDone.push(await waitRunDone(a, id));
+  const oneSlow = floodDone.map((r) => r.durationMs ?? 0).sort((x, y) => x - y)[10];
+  rows.push([
+    "another person's light run while one person has 20 heavier runs queued",
+    summary([lightMs]),
+    `light run ${lr.status}; each flood run ≈ ${oneSlow} ms on the runner, the flood's last finished ${((Date.parse(floodDone.at(-1).finishedAt) - Date.parse(floodDone[0].queuedAt)) / 1000).toFixed(1)} s after its first was queued`,
+  ]);
+
+  console.log(`\nHardening scenarios on ${BASE} (node ${process.version}, ${new Date().toISOString()})`);
+  console.log('| scenario | p50 | p95 | max | notes |');
+  console.log('|---|--:|--:|--:|---|');
+  for (const [name, sum, note] of rows) console.log(`| ${name} | ${fmt(sum.p50)} | ${fmt(sum.p95)} | ${fmt(sum.max)} | ${note} |`);
+  for (const id of [nb.id, heavyNb.id]) await c.call('DELETE', `/api/notebooks/${id}`);
+  await a.call('DELETE', `/api/notebooks/${anb.id}`);
+}
+
 async function main() {
+  if (arg('only', '') === 'hardening') return hardening();
   const c = new BenchClient(BASE);
   const health = await c.call('GET', '/api/health').catch((e) => ({ status: 0, text: e.message }));
   if (health.status !== 200) throw new Error(`no API at ${BASE} (${health.text ?? health.status}); start one with \`npm start\` or pass --url=`);

@@ -3,7 +3,8 @@
 import type { INestApplication } from '@nestjs/common';
 import { Client as PgClient } from 'pg';
 import { DataSource } from 'typeorm';
-import type { LockRecord, NotebookView } from '@cribra/contracts';
+import { QUEUES, type LockRecord, type NotebookView } from '@cribra/contracts';
+import { QueueService } from '../src/queue/queue.service';
 import {
   createNotebook,
   deleteNotebooks,
@@ -255,5 +256,150 @@ describe('a locked notebook', () => {
     expect(await sqlFails(`DELETE FROM notebooks WHERE id = $1`, [extra.nb.id])).toBe('CRLCK');
     await deleteNotebooks(app, [extra.nb.id]);
     expect(await db.query(`SELECT 1 FROM notebooks WHERE id = $1`, [extra.nb.id])).toHaveLength(0);
+  });
+});
+
+/** SQL as the app's own role (DATABASE_URL, what the API and runners use); returns the SQLSTATE it failed with. */
+async function asAppFails(statements: Array<[string, unknown[]?]>): Promise<string> {
+  const pg = new PgClient({ connectionString: process.env.DATABASE_URL });
+  await pg.connect();
+  try {
+    for (const [sql, params] of statements) await pg.query(sql, params ?? []);
+  } catch (e) {
+    return (e as { code?: string }).code ?? 'no code';
+  } finally {
+    await pg.end();
+  }
+  throw new Error(`expected the database to refuse: ${statements.map((s) => s[0]).join('; ')}`);
+}
+
+/** Runs SQL as the tables' owner (DATABASE_OWNER_URL, what migrations use). */
+async function asOwner<T = Record<string, unknown>>(sql: string, params: unknown[] = []): Promise<T[]> {
+  const pg = new PgClient({ connectionString: process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL });
+  await pg.connect();
+  try {
+    await pg.query('BEGIN');
+    await pg.query(`SET LOCAL cribra.allow_locked_changes = 'on'`);
+    const { rows } = await pg.query(sql, params);
+    await pg.query('COMMIT');
+    return rows as T[];
+  } finally {
+    await pg.end();
+  }
+}
+
+describe('the database enforces the lock against the app role itself', () => {
+  let owner: Client;
+  let nb: NotebookView;
+  let other: NotebookView;
+
+  beforeAll(async () => {
+    ({ client: owner } = await newMember(app, 'owner'));
+    nb = (await signedOff(owner)).nb;
+    expectStatus(await owner.call('post', `/api/notebooks/${nb.id}/lock`), 201);
+    other = await createNotebook(owner, 'An unlocked neighbour');
+    created.push(other.id);
+  });
+
+  it('the API and runners connect as a role without superuser rights or table ownership', async () => {
+    const [me] = await db.query(`SELECT current_user AS name, rolsuper FROM pg_roles WHERE rolname = current_user`);
+    expect(me.rolsuper).toBe(false);
+    expect(me.name).not.toBe('postgres');
+    const [{ n }] = await db.query(`SELECT count(*)::int AS n FROM pg_tables WHERE schemaname = 'public' AND tableowner = current_user`);
+    expect(n).toBe(0);
+  });
+
+  it('(a) refuses moving a cell of another notebook into the locked one (the new row is checked too)', async () => {
+    expect(await asAppFails([[`UPDATE cells SET notebook_id = $1, position = 77 WHERE id = $2`, [nb.id, other.cells[0].id]]])).toBe('CRLCK');
+    const [{ notebook_id }] = await db.query(`SELECT notebook_id FROM cells WHERE id = $1`, [other.cells[0].id]);
+    expect(notebook_id).toBe(other.id);
+  });
+
+  it('(b) guards uploads of a locked notebook', async () => {
+    const [u] = await asOwner<{ id: string }>(
+      `INSERT INTO uploads (notebook_id, owner_id, name, original_name, kind, media_type, size_bytes, sha256, row_count, columns, content, raw)
+       SELECT $1, owner_id, 'planted', 'planted.csv', 'table', 'text/csv', 1, repeat('0', 64), 0, '[]', '[]', '' FROM notebooks WHERE id = $1 RETURNING id`,
+      [other.id],
+    );
+    expect(await asAppFails([[`UPDATE uploads SET notebook_id = $1 WHERE id = $2`, [nb.id, u.id]]])).toBe('CRLCK');
+    expect(
+      await asAppFails([[
+        `INSERT INTO uploads (notebook_id, owner_id, name, original_name, kind, media_type, size_bytes, sha256, row_count, columns, content, raw)
+         SELECT $1, owner_id, 'late', 'late.csv', 'table', 'text/csv', 1, repeat('0', 64), 0, '[]', '[]', '' FROM notebooks WHERE id = $1`,
+        [nb.id],
+      ]]),
+    ).toBe('CRLCK');
+  });
+
+  it('(c) a re-verification run created after the lock cannot be relabelled an ordinary run', async () => {
+    const check = await owner.call('post', `/api/notebooks/${nb.id}/lock/checks`);
+    expectStatus(check, 202);
+    await waitVerification(owner, check.body.id);
+    const [run] = await db.query(
+      `SELECT r.id FROM runs r JOIN notebook_locks l ON l.notebook_id = r.notebook_id WHERE r.notebook_id = $1 AND r.purpose = 'reverify' AND r.queued_at > l.locked_at LIMIT 1`,
+      [nb.id],
+    );
+    expect(run).toBeDefined();
+    expect(await asAppFails([[`UPDATE runs SET purpose = 'run', outputs = '[]' WHERE id = $1`, [run.id]]])).toBe('CRLCK');
+    const [{ purpose }] = await db.query(`SELECT purpose FROM runs WHERE id = $1`, [run.id]);
+    expect(purpose).toBe('reverify');
+  });
+
+  it('(d) refuses TRUNCATE, session_replication_role = replica and the maintenance setting to the app role', async () => {
+    expect(await asAppFails([[`TRUNCATE cells CASCADE`]])).toMatch(/^(42501|CRLCK)$/);
+    expect(await asAppFails([[`TRUNCATE uploads`]])).toMatch(/^(42501|CRLCK)$/);
+    expect(await asAppFails([[`SET session_replication_role = replica`]])).toBe('42501');
+    expect(await asAppFails([[`ALTER TABLE cells DISABLE TRIGGER cells_guard_locked`]])).toBe('42501');
+    expect(
+      await asAppFails([[`BEGIN`], [`SET LOCAL cribra.allow_locked_changes = 'on'`], [`UPDATE cells SET source = 'show 0' WHERE id = $1`, [nb.cells[0].id]]]),
+    ).toBe('CRLCK');
+    const [{ source }] = await db.query(`SELECT source FROM cells WHERE id = $1`, [nb.cells[0].id]);
+    expect(source).toBe(nb.cells[0].source);
+  });
+
+  it('a queued run of a notebook locked under it ends failed with the reason, not queued forever', async () => {
+    // The state the race used to leave (a run accepted as the lock committed): planted by the owner.
+    const [run] = await asOwner<{ id: string; job_id: string }>(
+      `INSERT INTO runs (notebook_id, cell_id, cell_revision, cell_kind, source, purpose, requested_by, job_id)
+       SELECT notebook_id, id, revision, kind, source, 'run', author_id, gen_random_uuid() FROM cells WHERE id = $1 RETURNING id, job_id`,
+      [nb.cells[0].id],
+    );
+    await app.get(QueueService).send(QUEUES.runCell, { runId: run.id }, { id: run.job_id });
+    const until = Date.now() + 30_000;
+    let row: { status: string; error: { message: string } | null } | undefined;
+    while (Date.now() < until) {
+      [row] = await db.query(`SELECT status, error FROM runs WHERE id = $1`, [run.id]);
+      if (row && row.status !== 'queued' && row.status !== 'running') break;
+      await new Promise((r) => setTimeout(r, 200));
+    }
+    expect(row?.status).toBe('failed');
+    expect(row?.error?.message).toMatch(/locked/);
+  }, 40_000);
+});
+
+describe('a run sent as the notebook is locked', () => {
+  it('waits for the lock and is refused (409), leaving no queued run', async () => {
+    const { client: owner } = await newMember(app, 'owner');
+    const nb = await createNotebook(owner, 'Run racing a lock');
+    created.push(nb.id);
+    const cell = nb.cells[0];
+    const pg = new PgClient({ connectionString: process.env.DATABASE_URL });
+    await pg.connect();
+    try {
+      // As a lock does: the notebook row FOR UPDATE, set locked, commit while the run waits.
+      await pg.query('BEGIN');
+      await pg.query(`SELECT id FROM notebooks WHERE id = $1 FOR UPDATE`, [nb.id]);
+      await pg.query(`UPDATE notebooks SET status = 'locked' WHERE id = $1`, [nb.id]);
+      const run = owner.call('post', `/api/cells/${cell.id}/runs`);
+      await new Promise((r) => setTimeout(r, 400));
+      await pg.query('COMMIT');
+      const res = await run;
+      expectStatus(res, 409);
+      expect(res.body.details).toEqual({ reason: 'notebook_locked', notebookId: nb.id });
+    } finally {
+      await pg.end();
+    }
+    const queued = await db.query(`SELECT id FROM runs WHERE notebook_id = $1 AND status IN ('queued', 'running')`, [nb.id]);
+    expect(queued).toHaveLength(0);
   });
 });

@@ -5,7 +5,7 @@ import { makeDataSourceOptions } from '../src/database/data-source';
 
 /** Every migration (all features) must apply to an empty database and revert to an empty one. */
 describe('migrations on an empty database', () => {
-  const base = new URL(process.env.DATABASE_URL!);
+  const base = new URL(process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL!);
   const name = `cribra_migrations_${randomBytes(4).toString('hex')}`;
   const admin = new PgClient({ connectionString: Object.assign(new URL(base), { pathname: '/postgres' }).toString() });
   const url = Object.assign(new URL(base), { pathname: `/${name}` }).toString();

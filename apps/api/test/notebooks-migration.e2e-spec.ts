@@ -5,7 +5,7 @@ import { makeDataSourceOptions } from '../src/database/data-source';
 
 /** The notebooks migration on an empty database: its tables, functions and triggers come and go. */
 describe('notebooks migration', () => {
-  const base = new URL(process.env.DATABASE_URL!);
+  const base = new URL(process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL!);
   const name = `cribra_nbmig_${randomBytes(4).toString('hex')}`;
   const admin = new PgClient({ connectionString: Object.assign(new URL(base), { pathname: '/postgres' }).toString() });
 

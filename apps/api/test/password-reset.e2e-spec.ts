@@ -78,3 +78,46 @@ describe('password reset by e-mail link', () => {
     expect(short.body.details).toEqual([{ field: 'newPassword', messages: [expect.stringMatching(/at least 8/)] }]);
   });
 });
+
+describe('reset links and sessions (hardening, round two)', () => {
+  let app: INestApplication;
+  beforeAll(async () => {
+    app = await createTestApp({ signInLimit: 1000 });
+  });
+  afterAll(() => app.close());
+
+  /** The reset tokens mailed to `email`, oldest first, once `count` have arrived. */
+  async function tokens(email: string, count: number): Promise<string[]> {
+    await waitForMail(email, count);
+    return (await mailsTo(email)).map((m) => tokenFrom(m.text ?? ''));
+  }
+
+  it('issuing a newer link voids the older one; using a link voids every other', async () => {
+    const { email } = await newMember(app, 'twolinks');
+    const c = new Client(app);
+    expect((await c.call('post', '/api/auth/reset/request', { email })).status).toBe(202);
+    expect((await c.call('post', '/api/auth/reset/request', { email })).status).toBe(202);
+    const [older, newer] = await tokens(email, 2);
+    expect(older).not.toBe(newer);
+    const stale = await c.call('post', '/api/auth/reset/confirm', { token: older, newPassword: NEW_PASSWORD });
+    expect(stale.status).toBe(400);
+    expect((await c.call('post', '/api/auth/reset/confirm', { token: newer, newPassword: NEW_PASSWORD })).status).toBe(204);
+    // A link issued, then the password reset with another one issued later: the first is void too.
+    expect((await c.call('post', '/api/auth/reset/request', { email })).status).toBe(202);
+    const [, , third] = await tokens(email, 3);
+    const client = new Client(app);
+    expect((await client.signIn(email, NEW_PASSWORD)).status).toBe(200);
+    expect((await client.call('post', '/api/auth/password', { currentPassword: NEW_PASSWORD, newPassword: 'after-change-77' })).status).toBe(204);
+    expect((await c.call('post', '/api/auth/reset/confirm', { token: third, newPassword: 'late-reset-88' })).status).toBe(400);
+  });
+
+  it('a password change ends the account\'s other sessions and keeps the one that changed it', async () => {
+    const { email, client: here } = await newMember(app, 'pwchange');
+    const elsewhere = new Client(app);
+    expect((await elsewhere.signIn(email, PASSWORD)).status).toBe(200);
+    expect((await elsewhere.call('get', '/api/auth/me')).status).toBe(200);
+    expect((await here.call('post', '/api/auth/password', { currentPassword: PASSWORD, newPassword: 'changed-pass-42' })).status).toBe(204);
+    expect((await elsewhere.call('get', '/api/auth/me')).status).toBe(401);
+    expect((await here.call('get', '/api/auth/me')).status).toBe(200);
+  });
+});

@@ -118,6 +118,39 @@ describe('queue and runners', () => {
     expect(a2.stopped_at).not.toBeNull();
   }, 60_000);
 
+  it('takes a killed runner\'s run over through its heartbeat within seconds, not after the job expiry, counted once', async () => {
+    await stack.stopRunnersNamed(['kill-b']);
+    const nb = await createNotebook(owner);
+    const cell = await addCell(owner, nb.id, 'primorial(23)');
+    // A 10-minute expiry: only the heartbeat-based takeover can bring the run back in time.
+    const saved = process.env.CRIBRA_JOB_EXPIRE_SECONDS;
+    process.env.CRIBRA_JOB_EXPIRE_SECONDS = '600';
+    const long = { CRIBRA_JOB_EXPIRE_SECONDS: '600', CRIBRA_RUNNER_DEAD_AFTER_SECONDS: '3' };
+    const a = stack.startRunner('hb-a', { ...long, CRIBRA_RUNNER_TEST_PAUSE_MS: '60000' });
+    const queued = (await owner.client.call('post', `/api/cells/${cell.id}/runs`)).body as RunView;
+    process.env.CRIBRA_JOB_EXPIRE_SECONDS = saved;
+    await takenBy(queued.id, 'hb-a');
+    stack.startRunner('hb-b', long);
+    await waitFor('runner B to register', async () => ((await sql(`SELECT 1 FROM runners WHERE id = 'hb-b'`)).length ? true : undefined));
+    const killedAt = Date.now();
+    await stack.stopRunner(a, 'SIGKILL');
+    await takenBy(queued.id, 'hb-b');
+    const takeoverMs = Date.now() - killedAt;
+    const run = await finished(queued.id, 'the run to finish on runner B', 40_000);
+    expect(run).toMatchObject({ status: 'succeeded', runnerId: 'hb-b', attempts: 2 });
+    expect(run.outputs).toEqual([expect.objectContaining({ kind: 'value', text: '223092870' })]); // 23# = 223092870 (OEIS A002110)
+    expect(takeoverMs).toBeLessThan(20_000); // dead after 3 s, checked every 0.5 s, retried after 1 s
+    expect(await sql(`SELECT count(*)::int AS n FROM runs WHERE cell_id = $1`, [cell.id])).toEqual([{ n: 1 }]);
+    const [dead] = await sql<{ taken_over_by: string | null; current_job: string | null; active_jobs: unknown[] }>(
+      `SELECT taken_over_by, current_job, active_jobs FROM runners WHERE id = 'hb-a'`,
+    );
+    expect(dead).toMatchObject({ taken_over_by: 'hb-b', current_job: null });
+    expect(stack.logs.get('hb-b')).toMatch(/took over runner hb-a .*1 run\(s\)/);
+    const listed = (await owner.client.call('get', '/api/runners')).body as Array<{ id: string; alive: boolean; currentJob: string | null }>;
+    expect(listed.find((r) => r.id === 'hb-a')).toMatchObject({ alive: false, currentJob: null });
+    await stack.stopRunnersNamed(['hb-b']);
+  }, 90_000);
+
   it('computes a ledger range in blocks shared by two runners, equal to one single-process sieve', async () => {
     // Each block job pauses a little so that neither runner can drain the queue alone.
     await stack.stopRunnersNamed(['kill-b']);
@@ -245,5 +278,38 @@ describe('queue and runners', () => {
     expect(level).toMatchObject({ prime: 23, modulus: '223092870', phi: '36495360', largestGap: 40, patternTallies: [] });
     const single = wheelLevelStats(23, []);
     expect(level.histogram).toEqual([...single.histogram].map(([gap, count]) => ({ gap, count: count.toString() })));
+  }, 90_000);
+
+  it('serves people fairly: another person\'s single run goes before the rest of one person\'s flood', async () => {
+    await stack.stopRunnersNamed(['level-h', 'level-i']);
+    const other = await person(stack.app, 'qother');
+    const nb = await createNotebook(owner);
+    const flood = await addCell(owner, nb.id, 'primorial(11)');
+    const theirs = await createNotebook(other);
+    const light = await addCell(other, theirs.id, 'primorial(13)');
+    // No runner yet: the flood of 6 runs is queued first, then the other person's one run.
+    const floodRuns: RunView[] = [];
+    for (let i = 0; i < 6; i++) floodRuns.push((await owner.client.call('post', `/api/cells/${flood.id}/runs`)).body as RunView);
+    const single = (await other.client.call('post', `/api/cells/${light.id}/runs`)).body as RunView;
+    // One runner with one slot, a pause in each run: the order it takes them is the queue's order.
+    stack.startRunner('fair-a', { CRIBRA_RUNNER_TEST_PAUSE_MS: '300' });
+    const done = await waitFor(
+      'the other person\'s run',
+      async () => {
+        const [r] = await sql<{ status: string }>(`SELECT status FROM runs WHERE id = $1`, [single.id]);
+        return r.status === 'succeeded' || r.status === 'failed' ? r : undefined;
+      },
+      60_000,
+    );
+    expect(done.status).toBe('succeeded');
+    const order = await sql<{ id: string }>(
+      `SELECT id FROM runs WHERE id = ANY($1::uuid[]) AND started_at IS NOT NULL ORDER BY started_at`,
+      [[...floodRuns.map((r) => r.id), single.id]],
+    );
+    const position = order.findIndex((r) => r.id === single.id);
+    // FIFO would make it the 7th; the flood's first run (priority 0) and the single run (priority 0)
+    // come before the flood's others (priorities −1 … −5).
+    expect(position).toBeLessThanOrEqual(1);
+    await stack.stopRunnersNamed(['fair-a']);
   }, 90_000);
 });

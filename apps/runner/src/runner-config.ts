@@ -1,6 +1,6 @@
 import { availableParallelism, hostname } from 'node:os';
 import { randomBytes } from 'node:crypto';
-import { QUEUE_DEFAULT_EXPIRE_SECONDS } from '@cribra/contracts';
+import { QUEUE_DEFAULT_EXPIRE_SECONDS, RUN_OUTPUT_MAX_BYTES } from '@cribra/contracts';
 
 /** Everything a runner reads from its environment. */
 export interface RunnerConfig {
@@ -15,6 +15,10 @@ export interface RunnerConfig {
   /** How often this runner runs pg-boss maintenance (expiring jobs of dead runners). */
   maintenanceSeconds: number;
   heartbeatMs: number;
+  /** Largest size of one run's outputs (their JSON, as stored); larger outputs fail the run with a limit error. */
+  runOutputMaxBytes: number;
+  /** A runner silent for this long is presumed dead; a live runner takes its work over. */
+  deadAfterSeconds: number;
   /** On SIGTERM/SIGINT: how long running jobs may finish before they are handed back. */
   stopGraceMs: number;
   pollMs: number;
@@ -57,6 +61,8 @@ export function readRunnerConfig(env: NodeJS.ProcessEnv = process.env): RunnerCo
     jobExpireSeconds: positiveInt(env.CRIBRA_JOB_EXPIRE_SECONDS, QUEUE_DEFAULT_EXPIRE_SECONDS, 'CRIBRA_JOB_EXPIRE_SECONDS'),
     maintenanceSeconds: positiveInt(env.CRIBRA_QUEUE_MAINTENANCE_SECONDS, 30, 'CRIBRA_QUEUE_MAINTENANCE_SECONDS'),
     heartbeatMs: positiveInt(env.CRIBRA_RUNNER_HEARTBEAT_MS, 5000, 'CRIBRA_RUNNER_HEARTBEAT_MS'),
+    runOutputMaxBytes: positiveInt(env.CRIBRA_RUN_OUTPUT_MAX_BYTES, RUN_OUTPUT_MAX_BYTES, 'CRIBRA_RUN_OUTPUT_MAX_BYTES'),
+    deadAfterSeconds: positiveInt(env.CRIBRA_RUNNER_DEAD_AFTER_SECONDS, 30, 'CRIBRA_RUNNER_DEAD_AFTER_SECONDS'),
     stopGraceMs: positiveInt(env.CRIBRA_RUNNER_STOP_GRACE_MS, 10_000, 'CRIBRA_RUNNER_STOP_GRACE_MS'),
     pollMs: positiveInt(env.CRIBRA_RUNNER_POLL_MS, 500, 'CRIBRA_RUNNER_POLL_MS'),
     levelOnePieceUpTo: positiveInt(env.CRIBRA_LEVEL_ONE_PIECE_UP_TO, 23, 'CRIBRA_LEVEL_ONE_PIECE_UP_TO'),

@@ -10,8 +10,12 @@ import { plan } from './jobs/plan.job';
 import { runCell } from './jobs/run-cell.job';
 import { ensureQueues } from './queue/job-options';
 import { RunWakeup } from './queue/run-wakeup';
+import { takeOverDeadRunners } from './queue/takeover';
 import type { RunnerConfig } from './runner-config';
 import type { SiftExecutor } from './sift/sift-executor';
+
+/** Longest time between two looks for dead runners (takeover within dead-after + this). */
+const TAKEOVER_CHECK_MS = 5000;
 
 /** SQLSTATE raised by the database trigger that freezes locked notebooks (review feature). */
 const LOCKED_NOTEBOOK = 'CRLCK';
@@ -53,6 +57,7 @@ export class Runner {
   private wake: (() => void) | null = null;
   private loop: Promise<void> | null = null;
   private readonly wakeup: RunWakeup;
+  private takeoverTimer: NodeJS.Timeout | null = null;
   /**
    * Short retries left after a run was queued: its job is sent just after the run row commits (the
    * notification's moment), so the first fetch may come a few milliseconds too early.
@@ -74,7 +79,7 @@ export class Runner {
       maintenanceIntervalSeconds: cfg.maintenanceSeconds,
     });
     this.boss.on('error', (err) => this.log(`queue: ${err.message}`));
-    this.heartbeat = new Heartbeat(this.db, cfg);
+    this.heartbeat = new Heartbeat(this.db, cfg, () => [...this.inFlight].map(([id, queue]) => ({ queue, id })));
     this.wakeup = new RunWakeup(
       cfg.databaseUrl,
       () => {
@@ -96,6 +101,14 @@ export class Runner {
     await this.heartbeat.start();
     await this.wakeup.start();
     this.loop = this.run();
+    this.takeoverTimer = setInterval(() => {
+      void takeOverDeadRunners(this.db, this.boss, this.cfg.runnerId, this.cfg.deadAfterSeconds, (m) => this.log(m))
+        .then((taken) => {
+          if (taken.length) this.wake?.();
+        })
+        .catch((err: Error) => this.log(`takeover check failed: ${err.message}`));
+    }, Math.min(TAKEOVER_CHECK_MS, this.cfg.heartbeatMs));
+    this.takeoverTimer.unref();
     this.log(`started with ${this.cfg.slots} slot(s), job expiry ${this.cfg.jobExpireSeconds} s`);
   }
 
@@ -147,8 +160,13 @@ export class Runner {
     } catch (err) {
       const message = err instanceof Error ? err.message : String(err);
       if ((err as { code?: string }).code === LOCKED_NOTEBOOK) {
-        // The notebook was locked meanwhile: its rows are frozen, so the result cannot be stored. Retrying would not help.
-        this.log(`${queue} job ${job.id}: ${message}; result discarded`);
+        // The notebook was locked meanwhile: its rows are frozen, so the result cannot be stored.
+        // Retrying would not help; the run is closed as failed with the reason (the lock trigger
+        // lets an unfinished run be closed), so it never stays queued.
+        this.log(`${queue} job ${job.id}: ${message}; result not stored`);
+        await this.giveUp(queue, job, `the notebook was locked before the result could be stored (${message})`).catch((e: Error) =>
+          this.log(`could not mark the run failed: ${e.message}`),
+        );
         await this.boss.complete(queue, job.id).catch(() => undefined);
         return;
       }
@@ -167,7 +185,7 @@ export class Runner {
     if (queue === QUEUES.runCell && data.runId) {
       await this.db.query(
         `UPDATE runs SET status = 'failed', finished_at = now(), error = $2 WHERE id = $1 AND status IN ('queued', 'running')`,
-        [data.runId, JSON.stringify({ kind: 'internal', message: `the runner could not execute the cell: ${message}` })],
+        [data.runId, JSON.stringify({ kind: 'internal', message: `the runner could not execute the cell or store its result: ${message}` })],
       );
     } else if (data.computationId) {
       await this.db.query(
@@ -184,6 +202,7 @@ export class Runner {
   /** Stops taking jobs, lets running ones finish (up to `graceMs`), hands the rest back, closes everything. */
   async stop(graceMs = this.cfg.stopGraceMs): Promise<void> {
     this.stopping = true;
+    if (this.takeoverTimer) clearInterval(this.takeoverTimer);
     this.wake?.();
     await this.loop;
     const until = Date.now() + graceMs;

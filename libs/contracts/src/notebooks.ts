@@ -241,9 +241,28 @@ export interface RunOutput {
 
 export type RunErrorKind = 'syntax' | 'type' | 'domain' | 'runtime' | 'limit' | 'input' | 'cancelled' | 'internal';
 
+/**
+ * Largest size of one run's outputs, as stored (their JSON, UTF-8), checked by the runner before
+ * storing; a run above it fails with a `limit` error carrying `limit` (runners may lower or raise
+ * it with CRIBRA_RUN_OUTPUT_MAX_BYTES).
+ */
+export const RUN_OUTPUT_MAX_BYTES = 4 * 1024 * 1024;
+
+/** Largest stored size of a run's outputs carried inline by a notebook read (larger: `outputsOmitted`). */
+export const NOTEBOOK_INLINE_OUTPUT_BYTES = 64 * 1024;
+
+/** Which limit a `limit` error hit, with the sizes (so a client can say "12.3 MB of 4 MB"). */
+export interface RunLimitDetails {
+  name: 'run_output_bytes';
+  maxBytes: number;
+  sizeBytes: number;
+}
+
 export interface RunError {
   kind: RunErrorKind;
   message: string;
+  /** Set on a `limit` error raised outside the language (the per-run output size). */
+  limit?: RunLimitDetails;
   /** 1-based source position, when the error has one. */
   line?: number;
   column?: number;
@@ -261,6 +280,12 @@ export interface RunView {
   /** Short human note from the runner ("block 3 of 10"). */
   progressNote: string | null;
   outputs: RunOutput[] | null;
+  /**
+   * Set in a notebook read (GET /api/notebooks/:id) when this run's stored outputs are larger than
+   * NOTEBOOK_INLINE_OUTPUT_BYTES: `outputs` is then null and the outputs are fetched with
+   * GET /api/runs/:id, so one heavy run does not make every read of its notebook heavy.
+   */
+  outputsOmitted?: boolean;
   /** Canonical digest of the outputs (hex sha-256 from @cribra/lang), set when succeeded. */
   outputDigest: string | null;
   engineVersion: string | null;
@@ -326,8 +351,12 @@ export interface RunnerView {
   currentJob: string | null;
   jobsDone: number;
   stoppedAt: string | null;
-  /** Not stopped and seen within the last 30 seconds. */
+  /** Not stopped, not taken over and seen within the last 30 seconds. */
   alive: boolean;
+  /** When a live runner took its work over after its heartbeat stopped (null: never). */
+  takenOverAt?: string | null;
+  /** The runner that took its work over. */
+  takenOverBy?: string | null;
 }
 
 // ---------------------------------------------------------------- stored wheel levels

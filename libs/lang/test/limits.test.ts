@@ -90,3 +90,28 @@ describe('limits end hostile cells with typed errors', () => {
     expect(limited('gaps(53)').error.message).toContain('level 53 is not stored, and the engine computes gap histograms up to level 47');
   });
 });
+
+describe('the size limit is exact and the same for a power and a product (262 144 bits)', () => {
+  const ok = (source: string) => {
+    const r = evaluate(source, { limits: LIMITS });
+    expect(r.error, source).toBeNull();
+    return r;
+  };
+  it('accepts powers up to the limit, measured by the result itself', () => {
+    // 2^131100 has 131 101 bits (used to be refused as "about 262 200 bits").
+    ok('let x = 2^131100\nshow 1');
+    // 2^262143 has exactly 262 144 bits: the limit itself; 2^262144 has one bit more.
+    ok('let x = 2^262143\nshow 1');
+    expect(limited('2^262144').error.message).toBe('the power would have about 262145 bits; the limit is 262144 bits');
+    // 3^150000 has ⌊150000 · log2 3⌋ + 1 bits (237 745, counted here from the number itself; the
+    // old estimate said 300 000): accepted.
+    expect((3n ** 150000n).toString(2).length).toBe(237_745);
+    ok('let x = 3^150000\nshow 1');
+  });
+  it('refuses a^b and a^(b/2) · a^(b/2) alike', () => {
+    ok('let x = 2^131071 · 2^131072\nshow 1'); // 2^262143: 262 144 bits
+    expect(limited('2^131072 · 2^131072').error.message).toBe('the product would have about 262145 bits; the limit is 262144 bits');
+    expect(limited('let h = 3^82700\nh · h').error.message).toBe(limited('3^165400').error.message.replace('power', 'product'));
+    ok('let h = 3^82000\nshow h · h = 3^164000');
+  });
+});

@@ -71,8 +71,8 @@ export class AuthController {
   @Post('password')
   @HttpCode(204)
   @UseGuards(SignedInGuard)
-  async changePassword(@CurrentUser() user: UserEntity, @Body() dto: ChangePasswordDto): Promise<void> {
-    await this.auth.changePassword(user, dto.currentPassword, dto.newPassword);
+  async changePassword(@CurrentUser() user: UserEntity, @Body() dto: ChangePasswordDto, @Req() req: Request): Promise<void> {
+    await this.auth.changePassword(user, dto.currentPassword, dto.newPassword, req.sessionID);
   }
 
   @Post('reset/request')

@@ -42,16 +42,27 @@ export class AuthService {
     return user;
   }
 
-  async changePassword(user: UserEntity, currentPassword: string, newPassword: string): Promise<void> {
+  /** Also ends the account's other sessions (`keepSessionId`: the one making the change stays). */
+  async changePassword(user: UserEntity, currentPassword: string, newPassword: string, keepSessionId?: string): Promise<void> {
     const ok = await this.users.checkCredentials(user.email, currentPassword);
     if (!ok) throw new UnauthorizedException('The current password is wrong');
     await this.users.setPassword(user.id, newPassword);
+    // Whoever signed in with the old password elsewhere is signed out.
+    await this.db.query(`DELETE FROM session WHERE sess->>'userId' = $1 AND sid IS DISTINCT FROM $2`, [user.id, keepSessionId ?? null]);
+    await this.voidResets(user.id);
+  }
+
+  /** Voids every unused reset link of the account (a newer link, a used one or a password change supersedes them). */
+  private async voidResets(userId: string): Promise<void> {
+    await this.db.query(`UPDATE password_resets SET used_at = now() WHERE user_id = $1 AND used_at IS NULL`, [userId]);
   }
 
   /** Mails a single-use link valid for one hour; silent for unknown addresses (no account probing). */
   async requestReset(email: string): Promise<void> {
     const user = await this.users.findByEmail(email);
     if (!user) return;
+    // Only the newest link works: issuing one voids the older ones.
+    await this.voidResets(user.id);
     const token = randomBytes(32).toString('base64url');
     await this.resets.insert({
       userId: user.id,
@@ -87,6 +98,7 @@ export class AuthService {
       .execute();
     if (!claimed.affected) throw new BadRequestException('This reset link is invalid, already used or expired; ask for a new one');
     await this.users.setPassword(row.userId, newPassword);
+    await this.voidResets(row.userId);
     // Sign the account out everywhere: whoever knew the old password loses their sessions.
     await this.db.query(`DELETE FROM session WHERE sess->>'userId' = $1`, [row.userId]);
   }

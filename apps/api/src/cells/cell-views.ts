@@ -23,10 +23,16 @@ const SELECT_CELL = `
 
 type Db = DataSource | EntityManager;
 
-async function withRuns(db: Db, rows: CellRow[]): Promise<CellView[]> {
+/** `inlineOutputsUpTo`: leave out outputs stored larger than this (a notebook read's summary). */
+export interface CellViewOptions {
+  inlineOutputsUpTo?: number;
+}
+
+async function withRuns(db: Db, rows: CellRow[], opts: CellViewOptions = {}): Promise<CellView[]> {
   const latest = await latestRunsByCell(
     db,
     rows.map((r) => r.id),
+    opts,
   );
   return rows.map((r) => ({
     id: r.id,
@@ -44,9 +50,9 @@ async function withRuns(db: Db, rows: CellRow[]): Promise<CellView[]> {
 }
 
 /** Every cell of a notebook in order, each with its latest run. */
-export async function loadNotebookCells(db: Db, notebookId: string): Promise<CellView[]> {
+export async function loadNotebookCells(db: Db, notebookId: string, opts: CellViewOptions = {}): Promise<CellView[]> {
   const rows: CellRow[] = await db.query(`${SELECT_CELL} WHERE c.notebook_id = $1 ORDER BY c.position`, [notebookId]);
-  return withRuns(db, rows);
+  return withRuns(db, rows, opts);
 }
 
 export async function loadCell(db: Db, id: string): Promise<CellView | null> {

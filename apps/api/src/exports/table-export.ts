@@ -32,9 +32,27 @@ export function cellText(v: unknown): string {
   return JSON.stringify(v);
 }
 
-/** RFC 4180 CSV: fields with a comma, quote or line break are quoted, quotes doubled; CRLF lines. */
+/** A plain decimal number (negative ones included): a spreadsheet reads it as a number, never a formula. */
+const PLAIN_NUMBER = /^[+-]?\d+(\.\d+)?([eE][+-]?\d+)?$/;
+
+/**
+ * A field a spreadsheet would execute as a formula — starting with `=`, `+`, `-`, `@`, a tab or a
+ * carriage return — gets a leading `'` (the usual neutralisation), unless it is a plain number
+ * such as `-7`. Documented in docs/architecture.md (Uploads, outputs and exports).
+ */
+export function neutraliseFormula(s: string): string {
+  return /^[=+\-@\t\r]/.test(s) && !PLAIN_NUMBER.test(s) ? `'${s}` : s;
+}
+
+/**
+ * RFC 4180 CSV: fields with a comma, quote or line break are quoted, quotes doubled; CRLF lines;
+ * formula-leading fields neutralised (neutraliseFormula).
+ */
 export function toCsv(t: Table): string {
-  const field = (s: string): string => (/[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s);
+  const field = (raw: string): string => {
+    const s = neutraliseFormula(raw);
+    return /[",\r\n]/.test(s) ? `"${s.replace(/"/g, '""')}"` : s;
+  };
   return [t.columns, ...t.rows.map((r) => r.map(cellText))].map((r) => r.map(field).join(',')).join('\r\n') + '\r\n';
 }
 

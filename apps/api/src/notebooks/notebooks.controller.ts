@@ -1,7 +1,7 @@
 import { Body, Controller, Delete, Get, HttpCode, Param, ParseUUIDPipe, Patch, Post, Query, UploadedFile, UseGuards, UseInterceptors } from '@nestjs/common';
 import { FileInterceptor } from '@nestjs/platform-express';
 import { ApiBody, ApiConsumes, ApiCookieAuth, ApiOperation, ApiTags } from '@nestjs/swagger';
-import { UPLOAD_MAX_BYTES, type NotebookSummary, type NotebookView, type Page } from '@cribra/contracts';
+import { NOTEBOOK_INLINE_OUTPUT_BYTES, UPLOAD_MAX_BYTES, type NotebookSummary, type NotebookView, type Page } from '@cribra/contracts';
 import { CurrentUser, SignedInGuard } from '../common';
 import type { UserEntity } from '../users/user.entity';
 import { NotebookPolicyService } from '../members/notebook-policy.service';
@@ -44,10 +44,12 @@ export class NotebooksController {
   }
 
   @Get(':id')
-  @ApiOperation({ summary: 'A notebook with its cells (each with its latest run) and members' })
+  @ApiOperation({
+    summary: 'A notebook with its cells (each with its latest run) and members; outputs stored larger than 64 KiB are left out (outputsOmitted) and read with GET /runs/:id',
+  })
   async get(@CurrentUser() user: UserEntity, @Param('id', ParseUUIDPipe) id: string): Promise<NotebookView> {
     await this.policy.authorize(user, 'notebook.read', id);
-    return this.notebooks.view(user, id);
+    return this.notebooks.view(user, id, { inlineOutputsUpTo: NOTEBOOK_INLINE_OUTPUT_BYTES });
   }
 
   @Patch(':id')

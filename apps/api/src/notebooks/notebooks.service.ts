@@ -9,7 +9,7 @@ import type {
   StaleNotebookDetails,
 } from '@cribra/contracts';
 import { AuditService } from '../audit/audit.service';
-import { loadNotebookCells } from '../cells/cell-views';
+import { type CellViewOptions, loadNotebookCells } from '../cells/cell-views';
 import { MembersService } from '../members/members.service';
 import type { Actor } from '../members/notebook-policy.service';
 import { CreateNotebookDto } from './dto/create-notebook.dto';
@@ -109,8 +109,9 @@ export class NotebooksService {
     return toSummary(rows[0]);
   }
 
-  async view(actor: Actor, id: string): Promise<NotebookView> {
-    const [summary, cells, members] = await Promise.all([this.summary(actor, id), loadNotebookCells(this.db, id), this.members.list(id)]);
+  /** `opts.inlineOutputsUpTo`: the read's summary form (heavy outputs left out, fetched per run). */
+  async view(actor: Actor, id: string, opts: CellViewOptions = {}): Promise<NotebookView> {
+    const [summary, cells, members] = await Promise.all([this.summary(actor, id), loadNotebookCells(this.db, id, opts), this.members.list(id)]);
     return { ...summary, cells, members };
   }
 

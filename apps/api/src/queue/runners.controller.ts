@@ -27,10 +27,12 @@ export class RunnersController {
       current_job: string | null;
       jobs_done: number;
       stopped_at: Date | null;
+      taken_over_at: Date | null;
+      taken_over_by: string | null;
       alive: boolean;
     }> = await this.db.query(
-      `SELECT *, (stopped_at IS NULL AND last_seen_at > now() - make_interval(secs => $1)) AS alive FROM runners
-        ORDER BY (stopped_at IS NULL AND last_seen_at > now() - make_interval(secs => $1)) DESC, last_seen_at DESC LIMIT 100`,
+      `SELECT *, (stopped_at IS NULL AND taken_over_at IS NULL AND last_seen_at > now() - make_interval(secs => $1)) AS alive FROM runners
+        ORDER BY (stopped_at IS NULL AND taken_over_at IS NULL AND last_seen_at > now() - make_interval(secs => $1)) DESC, last_seen_at DESC LIMIT 100`,
       [ALIVE_WITHIN_SECONDS],
     );
     return rows.map((r) => ({
@@ -43,6 +45,8 @@ export class RunnersController {
       jobsDone: r.jobs_done,
       stoppedAt: r.stopped_at ? new Date(r.stopped_at).toISOString() : null,
       alive: r.alive,
+      takenOverAt: r.taken_over_at ? new Date(r.taken_over_at).toISOString() : null,
+      takenOverBy: r.taken_over_by,
     }));
   }
 }

@@ -32,6 +32,8 @@ export interface RunRow {
   finished_at: Date | null;
   duration_ms: number | null;
   error: RunView['error'];
+  /** Only in summary reads (latestRunsByCell with inlineOutputsUpTo). */
+  outputs_omitted?: boolean;
 }
 
 const iso = (d: Date | null): string | null => (d ? new Date(d).toISOString() : null);
@@ -58,6 +60,7 @@ export function toRunView(r: RunRow): RunView {
     finishedAt: iso(r.finished_at),
     durationMs: r.duration_ms,
     error: r.error,
+    ...(r.outputs_omitted ? { outputsOmitted: true } : {}),
   };
 }
 
@@ -92,12 +95,22 @@ export async function pageRuns(
   return { items: rows.map(toRunView), total: n };
 }
 
-/** The latest ordinary run of each given cell (any revision); re-verify runs never replace what a cell shows. */
-export async function latestRunsByCell(db: Db, cellIds: string[]): Promise<Map<string, RunView>> {
+/**
+ * The latest ordinary run of each given cell (any revision); re-verify runs never replace what a cell shows.
+ * With `inlineOutputsUpTo`, outputs stored larger than that many bytes are left out (`outputsOmitted`):
+ * `pg_column_size` reads the stored size without fetching the value, so a heavy run costs nothing here.
+ */
+export async function latestRunsByCell(db: Db, cellIds: string[], opts: { inlineOutputsUpTo?: number } = {}): Promise<Map<string, RunView>> {
   if (!cellIds.length) return new Map();
+  const limit = opts.inlineOutputsUpTo;
+  const select =
+    limit === undefined
+      ? SELECT_RUN
+      : `${SELECT_RUN_COLUMNS.replace('r.outputs,', `CASE WHEN pg_column_size(r.outputs) <= ${Math.floor(limit)} THEN r.outputs END AS outputs,
+         coalesce(pg_column_size(r.outputs) > ${Math.floor(limit)}, false) AS outputs_omitted,`)}
+    FROM runs r JOIN users u ON u.id = r.requested_by`;
   const rows: RunRow[] = await db.query(
-    `SELECT * FROM (${SELECT_RUN} WHERE r.cell_id = ANY($1::uuid[])) x
-      WHERE x.id IN (SELECT DISTINCT ON (cell_id) id FROM runs WHERE cell_id = ANY($1::uuid[]) AND purpose = 'run'
+    `${select} WHERE r.id IN (SELECT DISTINCT ON (cell_id) id FROM runs WHERE cell_id = ANY($1::uuid[]) AND purpose = 'run'
                       ORDER BY cell_id, queued_at DESC, id)`,
     [cellIds],
   );

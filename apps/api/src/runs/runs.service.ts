@@ -68,6 +68,13 @@ export class RunsService {
     // returns the view) and pg-boss is told the id: three round trips fewer than insert, send,
     // update, re-read. The runner only sees the run once the job exists.
     const jobId = randomUUID();
+    // Fairness between people: each run a person already has waiting or running lowers the
+    // priority of their next one, so one person's flood of runs cannot hold back another
+    // person's single run (pg-boss serves higher priorities first, then oldest first).
+    const [{ active }]: Array<{ active: number }> = await this.db.query(
+      `SELECT count(*)::int AS active FROM runs WHERE requested_by = $1 AND status IN ('queued', 'running')`,
+      [actor.id],
+    );
     const [row]: RunRow[] = await this.db.query(
       `WITH r AS (
          INSERT INTO runs (notebook_id, cell_id, cell_revision, cell_kind, source, purpose, requested_by, job_id)
@@ -77,7 +84,7 @@ export class RunsService {
     );
     try {
       const job: RunCellJob = { runId: row.id };
-      await this.queue.send(QUEUES.runCell, job, { id: jobId });
+      await this.queue.send(QUEUES.runCell, job, { id: jobId, priority: -active });
     } catch (err) {
       await this.db.query(
         `UPDATE runs SET status = 'failed', finished_at = now(), error = $2 WHERE id = $1`,

@@ -1,4 +1,4 @@
-import { decodeText, kindOf, parseTable, parseTuples } from './upload-parser';
+import { MAX_ROWS, decodeText, kindOf, parseTable, parseTuples } from './upload-parser';
 
 describe('upload parser', () => {
   it('reads one integer per line with comments and blank lines', () => {
@@ -15,6 +15,23 @@ describe('upload parser', () => {
     const out = parseTuples('0\n2\nsix\n8\n1.5\n');
     expect(out.ok).toBe(false);
     if (!out.ok) expect(out.errors.map((e) => e.line)).toEqual([3, 5]);
+  });
+
+  it('refuses a repeated value with the lines of both occurrences (a tuple is a set)', () => {
+    const out = parseTuples('# admissible offsets\n0\n2\n6\n+2\n8\n006\n');
+    expect(out.ok).toBe(false);
+    if (!out.ok) {
+      expect(out.errors).toEqual([
+        { line: 5, message: '2 appears on lines 3 and 5 (the values of a tuple are distinct)' },
+        { line: 7, message: '6 appears on lines 4 and 7 (the values of a tuple are distinct)' },
+      ]);
+    }
+  });
+
+  it('refuses a table with more than MAX_ROWS rows, naming the first row past the limit', () => {
+    const out = parseTable('n\n' + '7\n'.repeat(MAX_ROWS + 50));
+    expect(out).toEqual({ ok: false, errors: [{ line: MAX_ROWS + 2, message: `more than ${MAX_ROWS} rows` }] });
+    expect(parseTable('n\n' + '7\n'.repeat(MAX_ROWS)).ok).toBe(true);
   });
 
   it('refuses a file without integers', () => {

@@ -32,6 +32,8 @@ export function decodeText(buffer: Buffer): string | null {
 export function parseTuples(text: string): ParseOutcome {
   const values: string[] = [];
   const errors: ParseProblem[] = [];
+  /** First line of each value: a tuple is a set of distinct integers, so a repeat is refused. */
+  const firstLine = new Map<string, number>();
   const lines = text.split(/\r\n|\n|\r/);
   lines.forEach((raw, i) => {
     const body = raw.replace(/#.*$/, '').trim();
@@ -43,7 +45,16 @@ export function parseTuples(text: string): ParseOutcome {
       }
       return;
     }
-    values.push(BigInt(body).toString());
+    const value = BigInt(body).toString();
+    const seen = firstLine.get(value);
+    if (seen !== undefined) {
+      if (errors.length < MAX_PROBLEMS) {
+        errors.push({ line: i + 1, message: `${value} appears on lines ${seen} and ${i + 1} (the values of a tuple are distinct)` });
+      }
+      return;
+    }
+    firstLine.set(value, i + 1);
+    values.push(value);
   });
   if (errors.length) return { ok: false, errors };
   if (!values.length) return { ok: false, errors: [{ line: 1, message: 'the file holds no integers' }] };
@@ -55,7 +66,8 @@ export function parseTuples(text: string): ParseOutcome {
 export function parseTable(text: string): ParseOutcome {
   let records: Array<{ record: string[]; info: { lines: number } }>;
   try {
-    records = parse(text, { bom: true, skip_empty_lines: true, trim: true, info: true, relax_column_count: true }) as never;
+    // Stops after the header and MAX_ROWS + 1 rows: a file with more is refused without parsing the rest.
+    records = parse(text, { bom: true, skip_empty_lines: true, trim: true, info: true, relax_column_count: true, to: MAX_ROWS + 2 }) as never;
   } catch (err) {
     const e = err as { message?: string; lines?: number };
     return { ok: false, errors: [{ line: e.lines ?? 1, message: (e.message ?? 'not a valid CSV file').replace(/^Invalid .*?: /, '') }] };

@@ -5,7 +5,8 @@ import { DataSource } from 'typeorm';
 import { UPLOAD_MAX_BYTES, UPLOAD_NAME_PATTERN, type UploadContent, type UploadParseDetails, type UploadView } from '@cribra/contracts';
 import { AuditService } from '../audit/audit.service';
 import type { Actor } from '../members/notebook-policy.service';
-import { decodeText, kindOf, parseTable, parseTuples } from './upload-parser';
+import { UploadParsePool } from './upload-parse-pool';
+import { kindOf } from './upload-parser';
 
 /** What the multer file interceptor hands over (memory storage: nothing touches the disk). */
 export interface IncomingFile {
@@ -69,6 +70,7 @@ export class UploadsService {
   constructor(
     @InjectDataSource() private readonly db: DataSource,
     private readonly audit: AuditService,
+    private readonly parser: UploadParsePool,
   ) {}
 
   async list(notebookId: string): Promise<UploadView[]> {
@@ -108,15 +110,15 @@ export class UploadsService {
       });
     }
     if (file.size === 0) throw refuse('The file is empty', { reason: 'empty', errors: [] });
-    const text = decodeText(file.buffer);
-    if (text === null) {
-      throw refuse('The file is not UTF-8 text', { reason: 'bad_type', errors: [{ line: 1, message: 'not UTF-8 text' }] });
-    }
     const uploadName = name ?? defaultName(file.originalname);
     if (!new RegExp(UPLOAD_NAME_PATTERN).test(uploadName)) {
       throw refuse(`"${uploadName}" cannot be used as an upload name`, { reason: 'bad_name', errors: [] });
     }
-    const parsed = kind === 'tuples' ? parseTuples(text) : parseTable(text);
+    // Decoding and parsing happen in a worker thread: the request thread stays free for others.
+    const parsed = await this.parser.parse(kind, file.buffer);
+    if (parsed === null) {
+      throw refuse('The file is not UTF-8 text', { reason: 'bad_type', errors: [{ line: 1, message: 'not UTF-8 text' }] });
+    }
     if (!parsed.ok) {
       const first = parsed.errors[0];
       throw refuse(`Line ${first.line}: ${first.message}`, { reason: 'parse_error', errors: parsed.errors });

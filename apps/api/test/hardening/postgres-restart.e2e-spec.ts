@@ -33,7 +33,7 @@ function serverOptions(dir: string): string {
 }
 
 async function listeners(db: string): Promise<number> {
-  const c = new PgClient({ connectionString: process.env.DATABASE_URL });
+  const c = new PgClient({ connectionString: process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL });
   await c.connect();
   try {
     return (await c.query(`SELECT count(*)::int AS n FROM pg_stat_activity WHERE datname = $1 AND query ILIKE 'LISTEN%'`, [db])).rows[0].n as number;
@@ -43,7 +43,7 @@ async function listeners(db: string): Promise<number> {
 }
 
 async function dataDirectory(): Promise<string> {
-  const c = new PgClient({ connectionString: process.env.DATABASE_URL });
+  const c = new PgClient({ connectionString: process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL });
   await c.connect();
   try {
     return (await c.query('SHOW data_directory')).rows[0].data_directory as string;

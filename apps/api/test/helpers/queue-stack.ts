@@ -37,7 +37,7 @@ export class QueueStack {
   private savedEnv: Record<string, string | undefined> = {};
 
   constructor() {
-    const base = new URL(process.env.DATABASE_URL!);
+    const base = new URL(process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL!);
     this.admin = new PgClient({ connectionString: Object.assign(new URL(base), { pathname: '/postgres' }).toString() });
     // A test may restart PostgreSQL under this idle connection; stop() then drops with a new one.
     this.admin.on('error', () => undefined);
@@ -96,7 +96,7 @@ export class QueueStack {
     const dropped = await this.admin.query(`DROP DATABASE IF EXISTS ${this.name}`).then(() => true, () => false);
     await this.admin.end().catch(() => undefined);
     if (!dropped) {
-      const again = new PgClient({ connectionString: Object.assign(new URL(process.env.DATABASE_URL!), { pathname: '/postgres' }).toString() });
+      const again = new PgClient({ connectionString: Object.assign(new URL(process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL!), { pathname: '/postgres' }).toString() });
       again.on('error', () => undefined);
       await again.connect().then(() => again.query(`DROP DATABASE IF EXISTS ${this.name}`)).catch(() => undefined);
       await again.end().catch(() => undefined);

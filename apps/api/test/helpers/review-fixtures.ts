@@ -2,7 +2,7 @@
 // cells, waiting for runs and re-verifies (executed by the runner the launcher starts), e-mailed
 // links, and teardown of locked notebooks.
 import type { INestApplication } from '@nestjs/common';
-import { DataSource } from 'typeorm';
+import { Client as PgClient } from 'pg';
 import type { NotebookView, RunView, VerificationView } from '@cribra/contracts';
 import { Client, newMember } from './test-app';
 import { waitForMail } from './mailbox';
@@ -92,11 +92,20 @@ export async function linkInMail(address: string, prefix: string, count = 1): Pr
   return m[0];
 }
 
-/** Deletes notebooks, locked ones included (the documented maintenance escape of the lock trigger). */
-export async function deleteNotebooks(app: INestApplication, ids: string[]): Promise<void> {
+/**
+ * Deletes notebooks, locked ones included (the documented maintenance escape of the lock trigger,
+ * honoured only for the tables' owner: the app's own role cannot use it).
+ */
+export async function deleteNotebooks(_app: INestApplication, ids: string[]): Promise<void> {
   if (!ids.length) return;
-  await app.get(DataSource).transaction(async (m) => {
-    await m.query(`SET LOCAL cribra.allow_locked_changes = 'on'`);
-    await m.query(`DELETE FROM notebooks WHERE id = ANY($1::uuid[])`, [ids]);
-  });
+  const pg = new PgClient({ connectionString: process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL });
+  await pg.connect();
+  try {
+    await pg.query('BEGIN');
+    await pg.query(`SET LOCAL cribra.allow_locked_changes = 'on'`);
+    await pg.query(`DELETE FROM notebooks WHERE id = ANY($1::uuid[])`, [ids]);
+    await pg.query('COMMIT');
+  } finally {
+    await pg.end();
+  }
 }

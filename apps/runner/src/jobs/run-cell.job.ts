@@ -1,4 +1,4 @@
-import { QUEUES, type RunCellJob, type LedgerComputationBody } from '@cribra/contracts';
+import { QUEUES, type RunCellJob, type LedgerComputationBody, type RunError } from '@cribra/contracts';
 import { PgDataProvider } from '../data/pg-data-provider';
 import { requestLedgerComputation } from '../data/ledger-requests';
 import { sleep, type JobContext, type JobHandler } from '../job-context';
@@ -78,7 +78,59 @@ export const runCell: JobHandler<RunCellJob> = async (ctx, job) => {
   } finally {
     clearInterval(watch);
   }
+  result = withinOutputLimit(result, cfg.runOutputMaxBytes);
   const failed = result.error !== null;
+  const done = await storeResult(db, runId, cfg.runnerId, failed, result, Date.now() - started);
+  if (done === 1) {
+    ctx.log(`run ${runId} ${failed ? 'failed' : 'succeeded'} in ${Date.now() - started} ms (attempt job ${job.id})`);
+  }
+};
+
+/**
+ * Checked before storing: outputs above the per-run byte limit (their JSON as stored) are not
+ * stored; the run fails with a limit error naming both sizes. One run of 33.7 MB used to make
+ * every read of its notebook 33.7 MB.
+ */
+export function withinOutputLimit(result: SiftResult, maxBytes: number): SiftResult {
+  const size = Buffer.byteLength(JSON.stringify(result.outputs), 'utf8');
+  if (size <= maxBytes) return result;
+  const error: RunError = {
+    kind: 'limit',
+    message: `the outputs of this run take ${size} bytes, above the limit of ${maxBytes} bytes per run; show fewer or smaller values (a table of summaries, a count, a digest)`,
+    limit: { name: 'run_output_bytes', maxBytes, sizeBytes: size },
+  };
+  return { ...result, outputs: [], digest: null, error };
+}
+
+/**
+ * SQLSTATE classes of a result the database will never accept however often it is retried
+ * (22: data exception, e.g. a string jsonb refuses; 54: program limit exceeded, e.g. a value too
+ * large for a row).
+ */
+const UNSTORABLE = /^(22|54)/;
+
+/**
+ * Stores the result while this runner still owns the run; returns the rows written (0 or 1).
+ * A result the database refuses for good ends the run `failed` with the reason instead, so the
+ * run is never left `running`; connection errors are thrown (the job is retried).
+ */
+async function storeResult(db: JobContext['db'], runId: string, runnerId: string, failed: boolean, result: SiftResult, durationMs: number): Promise<number> {
+  try {
+    return await writeResult(db, runId, runnerId, failed, result, durationMs);
+  } catch (err) {
+    const code = (err as { code?: string }).code ?? '';
+    if (!UNSTORABLE.test(code)) throw err;
+    const message = `the result could not be stored: ${(err as Error).message} (SQLSTATE ${code})`;
+    const closed = await db.query(
+      `UPDATE runs SET status = 'failed', error = $3, progress_note = NULL, finished_at = now(), duration_ms = $4
+        WHERE id = $1 AND status = 'running' AND runner_id = $2`,
+      [runId, runnerId, JSON.stringify({ kind: 'internal', message }), durationMs],
+    );
+    return closed.rowCount ?? 0;
+  }
+}
+
+async function writeResult(db: JobContext['db'], runId: string, runnerId: string, failed: boolean, result: SiftResult, durationMs: number): Promise<number> {
   const done = await db.query(
     `UPDATE runs SET status = $3::varchar, outputs = $4, output_digest = $5, error = $6, engine_version = $7,
             language_version = $8, progress = CASE WHEN $3::varchar = 'succeeded' THEN 1 ELSE progress END,
@@ -86,19 +138,17 @@ export const runCell: JobHandler<RunCellJob> = async (ctx, job) => {
       WHERE id = $1 AND status = 'running' AND runner_id = $2`,
     [
       runId,
-      cfg.runnerId,
+      runnerId,
       failed ? 'failed' : 'succeeded',
       JSON.stringify(result.outputs),
       result.digest,
       result.error ? JSON.stringify(result.error) : null,
       result.engineVersion,
       result.languageVersion,
-      Date.now() - started,
+      durationMs,
     ],
   );
-  if (done.rowCount === 1) {
-    ctx.log(`run ${runId} ${failed ? 'failed' : 'succeeded'} in ${Date.now() - started} ms (attempt job ${job.id})`);
-  }
-};
+  return done.rowCount ?? 0;
+}
 
 export const RUN_CELL_QUEUE = QUEUES.runCell;

@@ -38,16 +38,49 @@ export function add(a: Value, b: Value, span: SourceSpan, sign: 1n | -1n = 1n): 
   return Rational.of(an * bd + sign * bn * ad, ad * bd);
 }
 
+/**
+ * A product of integers of b1 and b2 bits has b1 + b2 − 1 or b1 + b2 bits: refused before it is
+ * computed when even the smaller size is over the limit, else checked exactly once computed, so
+ * the limit applies to the result's real size (the same for a^b and a^(b/2) · a^(b/2)).
+ */
+function checkProduct(u: bigint, v: bigint, maxBits: number, span: SourceSpan): bigint {
+  if (u === 0n || v === 0n) return 0n;
+  checkBits(bitLength(u) + bitLength(v) - 1, maxBits, 'the product', span);
+  const p = u * v;
+  checkBits(bitLength(p), maxBits, 'the product', span);
+  return p;
+}
+
 export function mul(a: Value, b: Value, span: SourceSpan, maxBits: number): Num {
   const x = needNum(a, '·', span);
   const y = needNum(b, '·', span);
   if (typeof x === 'number' || typeof y === 'number') return toReal(x) * toReal(y);
   const [an, ad] = parts(x);
   const [bn, bd] = parts(y);
-  checkBits(bitLength(an) + bitLength(bn), maxBits, 'the product', span);
-  checkBits(bitLength(ad) + bitLength(bd), maxBits, 'the product', span);
-  if (ad === 1n && bd === 1n) return an * bn;
-  return Rational.of(an * bn, ad * bd);
+  const n = checkProduct(an, bn, maxBits, span);
+  const d = checkProduct(ad, bd, maxBits, span);
+  if (ad === 1n && bd === 1n) return n;
+  return Rational.of(n, d);
+}
+
+/** log2 |x| for x ≠ 0, to double precision whatever the size of x. */
+export function log2Abs(x: bigint): number {
+  const ax = x < 0n ? -x : x;
+  const bits = bitLength(ax);
+  if (bits <= 1000) return Math.log2(Number(ax));
+  const shift = bits - 64;
+  return Math.log2(Number(ax >> BigInt(shift))) + shift;
+}
+
+/**
+ * Bits of |n|^e: exactly ⌊e · log2|n|⌋ + 1. The estimate in double precision is exact to far
+ * better than one bit below the limit (e · log2|n| ≤ 2^18 there), so only a result within one bit
+ * of the limit needs computing to decide (powerBits returns the lower of the two candidates).
+ */
+export function powerBits(n: bigint, e: bigint): number {
+  const an = n < 0n ? -n : n;
+  if (an <= 1n || e === 0n) return an === 0n && e > 0n ? 0 : 1;
+  return Math.floor(Number(e) * log2Abs(an) - 1e-9) + 1;
 }
 
 export function div(a: Value, b: Value, span: SourceSpan, maxBits: number): Num {
@@ -102,12 +135,13 @@ export function pow(a: Value, b: Value, span: SourceSpan, maxBits: number): Num 
   const e = y < 0n ? -y : y;
   const absN = n < 0n ? -n : n;
   if (absN > 1n || d > 1n) {
-    const bits = Math.max(bitLength(absN), bitLength(d)) * Number(e);
     if (e > BigInt(maxBits)) throw limitError(`the power would have more than ${maxBits} bits; the limit is ${maxBits} bits`, span);
-    checkBits(bits, maxBits, 'the power', span);
+    // Exact size of the result (not bitLength(base) · e, which took 2^131100 for 262 200 bits).
+    checkBits(Math.max(powerBits(absN, e), powerBits(d, e)), maxBits, 'the power', span);
   }
   const pn = n ** e;
   const pd = d ** e;
+  if (absN > 1n || d > 1n) checkBits(Math.max(bitLength(pn), bitLength(pd)), maxBits, 'the power', span);
   return y < 0n ? Rational.of(pd, pn) : d === 1n ? pn : Rational.of(pn, pd);
 }
 

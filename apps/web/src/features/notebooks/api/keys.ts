@@ -7,4 +7,5 @@ export const notebookKeys = {
   list: (q: NotebookListQuery) => [...notebookKeys.lists(), q] as const,
   detail: (id: string) => [...notebookKeys.all, 'detail', id] as const,
   cellRuns: (cellId: string) => ['cells', cellId, 'runs'] as const,
+  run: (runId: string) => ['runs', runId] as const,
 };

@@ -1,10 +1,13 @@
 import type { RunView } from '@cribra/contracts';
 import { errorTitle } from '@cribra/lang';
-import { Alert, Stack } from '@mui/material';
+import { Alert, Stack, Typography } from '@mui/material';
 import { OutputView } from '../../../components/outputs/output-view';
+import { useRunOutputs } from '../api/use-run-outputs';
 
 /** The outputs of a finished run, or its error with the source position when there is one. */
 export function RunOutputs({ run }: { run: RunView }) {
+  // Heavy outputs are not in the notebook read: fetched for this run alone.
+  const { outputs, loading, error } = useRunOutputs(run);
   if (run.status === 'failed' || run.status === 'cancelled') {
     const e = run.error;
     return (
@@ -14,10 +17,12 @@ export function RunOutputs({ run }: { run: RunView }) {
       </Alert>
     );
   }
-  if (!run.outputs?.length) return null;
+  if (loading) return <Typography variant="body2" color="text.secondary" sx={{ my: 1 }}>Loading this run's outputs…</Typography>;
+  if (error) return <Alert severity="warning" sx={{ my: 1 }}>The outputs could not be loaded: {error.message}</Alert>;
+  if (!outputs?.length) return null;
   return (
     <Stack spacing={2} sx={{ my: 1 }}>
-      {run.outputs.map((o, i) => <OutputView key={i} output={o} fileName={`run-${run.id.slice(0, 8)}-${i + 1}`} />)}
+      {outputs.map((o, i) => <OutputView key={i} output={o} fileName={`run-${run.id.slice(0, 8)}-${i + 1}`} />)}
     </Stack>
   );
 }
