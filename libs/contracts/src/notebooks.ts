@@ -274,7 +274,15 @@ export interface RunAllResponse {
 /** Server-sent events on /api/notebooks/:id/events (event name = `type`). */
 export type NotebookEvent =
   | { type: 'run'; run: RunProgressEvent }
-  | { type: 'notebook'; notebookId: string; revision: number };
+  | { type: 'notebook'; notebookId: string; revision: number }
+  | { type: 'state'; notebookId: string; topic: NotebookStateTopic };
+
+/**
+ * What changed when a `state` event arrives (no revision moves with these): the status (review
+ * asked, changes asked, locked), a review request, a re-verification, a review (sign-off, or one
+ * voided), the lock record, members or invitations.
+ */
+export type NotebookStateTopic = 'status' | 'review' | 'verification' | 'lock' | 'members';
 
 /** Small form of a run update; fetch GET /api/runs/:id for the outputs once `status` is final. */
 export interface RunProgressEvent {

@@ -29,6 +29,18 @@ export interface SiftEditorProps {
 
 const LINE_HEIGHT = 19;
 
+type Shortcut = 'run' | 'save' | 'addBelow';
+
+/** Ctrl/Cmd+Enter runs, Ctrl/Cmd+S saves, Ctrl/Cmd+Alt+N adds a query below (the hint line says so). */
+function shortcutFor(e: { ctrlKey: boolean; metaKey: boolean; altKey: boolean; shiftKey: boolean; keyCode: number }): Shortcut | null {
+  const { KeyCode } = monaco;
+  if (!(e.ctrlKey || e.metaKey) || e.shiftKey) return null;
+  if (e.altKey) return e.keyCode === KeyCode.KeyN ? 'addBelow' : null;
+  if (e.keyCode === KeyCode.Enter) return 'run';
+  if (e.keyCode === KeyCode.KeyS) return 'save';
+  return null;
+}
+
 /** Monaco with the Sift mode; grows with its content (3 to 30 lines). Loaded lazily. */
 export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave, onAddBelow, readOnly, label, path, language = SIFT_LANGUAGE_ID }: SiftEditorProps) {
   // Latest callbacks for the commands registered once at mount.
@@ -46,10 +58,18 @@ export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave,
 
   const onMount: OnMount = (editor) => {
     editorRef.current = editor;
-    const { KeyMod, KeyCode } = monaco;
-    editor.addCommand(KeyMod.CtrlCmd | KeyCode.Enter, () => handlers.current.onRun?.(editor.getValue()));
-    editor.addCommand(KeyMod.CtrlCmd | KeyCode.KeyS, () => handlers.current.onSave?.(editor.getValue()));
-    editor.addCommand(KeyMod.CtrlCmd | KeyMod.Alt | KeyCode.KeyN, () => handlers.current.onAddBelow?.());
+    // Keys are handled by this editor's own key listener: `addCommand` bindings are shared by every
+    // editor on the page (the last one created wins), so Ctrl+Enter in cell 1 would run the last cell.
+    editor.onKeyDown((e) => {
+      const action = shortcutFor(e);
+      if (!action) return;
+      e.preventDefault();
+      e.stopPropagation();
+      const h = handlers.current;
+      if (action === 'run') h.onRun?.(editor.getValue());
+      else if (action === 'save') h.onSave?.(editor.getValue());
+      else h.onAddBelow?.();
+    });
     const model = editor.getModel();
     if (model && language === SIFT_LANGUAGE_ID) updateDiagnostics(monaco, model, siftService);
   };

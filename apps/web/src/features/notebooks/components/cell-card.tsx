@@ -8,12 +8,12 @@ import { monoFont } from '../../../lib/design-tokens';
 import { useCancelRun } from '../api/cancel-run';
 import { useRunCell } from '../api/run-cell';
 import { useCellDraft } from '../hooks/use-cell-draft';
+import { CellConflict } from './cell-conflict';
 import { CellStatusLine } from './cell-status-line';
 import { CellToolbar } from './cell-toolbar';
 import { RunHistory } from './run-history';
 import { RunOutputs } from './run-outputs';
 import { RunProgress } from './run-progress';
-import { StaleCellDialog } from './stale-cell-dialog';
 
 const KIND_LABEL: Record<CellKind, string> = { query: 'QUERY', claim: 'CLAIM', note: 'NOTE' };
 
@@ -81,6 +81,16 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
           language={cell.kind === 'note' ? 'markdown' : undefined}
         />
       )}
+      {d.conflict && (
+        <CellConflict mine={d.draft} theirs={d.conflict} baseRevision={d.baseRevision} saving={d.saving}
+          language={cell.kind === 'note' ? 'markdown' : undefined}
+          onKeepMine={() => void d.keepMine()} onTakeTheirs={d.takeTheirs} onSaveMerge={(t) => void d.saveMerge(t)} />
+      )}
+      {d.behind && !d.conflict && (
+        <Alert severity="info" sx={{ mt: 1 }}>
+          {cell.author.displayName} saved revision {cell.revision} while you were editing; saving will show both texts to merge.
+        </Alert>
+      )}
       {actionError && <Alert severity="error" sx={{ mt: 1 }}>{errorMessage(actionError)}</Alert>}
       {run && active && <RunProgress run={run} />}
       {run && !active && runnable && <RunOutputs run={run} />}
@@ -88,9 +98,6 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
       <Collapse in={historyOpen} unmountOnExit>
         <Box sx={{ mt: 1 }}><RunHistory cellId={cell.id} /></Box>
       </Collapse>
-      {d.conflict && (
-        <StaleCellDialog mine={d.draft} theirs={d.conflict} onKeepMine={() => void d.keepMine()} onTakeTheirs={d.takeTheirs} onClose={d.dismissConflict} />
-      )}
     </Paper>
   );
 }

@@ -1,4 +1,4 @@
-import type { NotebookView } from '@cribra/contracts';
+import type { NotebookStateTopic, NotebookView } from '@cribra/contracts';
 import { Alert, Box, Button } from '@mui/material';
 import { type ReactNode, useState } from 'react';
 import { useParams } from 'react-router-dom';
@@ -20,15 +20,17 @@ interface Props {
   sidePanel?: (notebook: NotebookView) => ReactNode;
   /** Extra header actions (export, lock…), composed in by the route. */
   headerActions?: (notebook: NotebookView) => ReactNode;
+  /** Told of every live change heard on the notebook's event stream (the route refreshes the side panel). */
+  onLiveChange?: (notebookId: string, topic: NotebookStateTopic | 'run') => void;
 }
 
-export default function NotebookPage({ sidePanel, headerActions }: Props) {
+export default function NotebookPage({ sidePanel, headerActions, onLiveChange }: Props) {
   const { id = '' } = useParams();
   const nb = useNotebook(id);
   const me = useCurrentUser();
   const runAll = useRunAll(id);
   const [settingsOpen, setSettingsOpen] = useState(false);
-  useNotebookEvents(id);
+  useNotebookEvents(id, (topic) => onLiveChange?.(id, topic));
   useDocumentTitle(nb.data?.title ?? 'Notebook');
 
   if (nb.isPending) return <LoadingState label="Loading the notebook…" />;
@@ -44,7 +46,7 @@ export default function NotebookPage({ sidePanel, headerActions }: Props) {
     <Box sx={{ display: 'grid', gridTemplateColumns: panel ? 'minmax(0, 1fr) 340px' : 'minmax(0, 1fr)', gap: 3, alignItems: 'start' }}>
       <Box component="article" aria-label="Notebook">
         <NotebookHeader notebook={notebook} canRun={canRun(who)} runningAll={runAll.isPending} onRunAll={() => runAll.mutate()}
-          onEditSettings={canEdit ? () => setSettingsOpen(true) : undefined} actions={headerActions?.(notebook)} />
+          onEditSettings={canEdit ? () => setSettingsOpen(true) : undefined} actions={headerActions?.(notebook)} canEdit={canEdit} />
         {/* Kept mounted while open even if the notebook gets locked meanwhile, so the input is not lost. */}
         {settingsOpen && <NotebookSettingsDialog notebook={notebook} onClose={() => setSettingsOpen(false)} />}
         {nb.isError && (
