@@ -35,7 +35,6 @@ describe('shortcuts in a six-cell notebook', () => {
   it('Ctrl+Enter in cell 1 runs cell 1; Ctrl+S in cell 3 saves cell 3', async () => {
     await owner.page.goto(`${baseUrl()}/notebooks/${notebookId}`);
     for (let i = 0; i < 6; i++) await card(i).locator('.monaco-editor').waitFor();
-    expect(await owner.page.getByTestId('shortcut-hint').innerText()).toMatch(/Ctrl\s*\+\s*Enter saves and runs it/);
 
     await card(0).locator('.monaco-editor').click();
     await owner.page.keyboard.press('Control+Enter');
@@ -53,6 +52,7 @@ describe('shortcuts in a six-cell notebook', () => {
     await card(2).getByTestId('cell-status').filter({ hasNotText: 'unsaved' }).waitFor();
     expect((await pageApi<CellView>(owner.page, 'GET', `/cells/${cells[2].id}`)).source).toBe('show 3 + 30');
     expect((await pageApi<CellView>(owner.page, 'GET', `/cells/${cells[5].id}`)).source).toBe('show 6');
+    expect(await owner.page.getByTestId('shortcut-hint').innerText()).toMatch(/Ctrl\s*\+\s*Enter saves and runs it/);
     await saveScreenshot(owner.page, 'shortcuts');
   });
 
