@@ -298,7 +298,8 @@ export interface RunProgressEvent {
 // ---------------------------------------------------------------- computations (chunked jobs)
 
 export type ComputationKind = 'level' | 'ledger';
-export type ComputationStatus = 'queued' | 'running' | 'succeeded' | 'failed';
+export type ComputationStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
+export const ACTIVE_COMPUTATION_STATUSES: readonly ComputationStatus[] = ['queued', 'running'];
 
 export interface ComputationView {
   id: string;
@@ -310,9 +311,37 @@ export interface ComputationView {
   chunksDone: number;
   requestedBy: UserRef | null;
   createdAt: string;
+  /** When a runner planned it (its chunks were queued); elapsed time counts from here. */
+  startedAt: string | null;
   finishedAt: string | null;
   error: string | null;
 }
+
+/**
+ * Measured costs behind the Data page's estimates (docs/scaling.md, "Measured costs"): one runner
+ * slot on the 2-core development machine under the load of parallel work. A request estimated
+ * above ESTIMATE_CONFIRM_MS asks for confirmation first.
+ */
+export const COSTS = {
+  /** Ledger blocks 0–99 (up to 10^9) as one computation, one runner with one slot: 8.3 s. */
+  ledgerBlockMs: 83,
+  /** Whole wheel levels, request → stored, one runner slot (31#: 12.5 s; 37#: 261 s). Levels up to 29 take under a second. */
+  levelMs: { 31: 12_500, 37: 261_000 } as Record<number, number>,
+  /**
+   * 41# would stream the whole 37# period as 37# streams the 31# period: φ(37#)/φ(31#) = 36 times
+   * the 37# walk. An extrapolation, not a measurement.
+   */
+  level41Factor: 36,
+} as const;
+export const ESTIMATE_CONFIRM_MS = 60_000;
+
+/**
+ * Cancel a computation:
+ *   POST /api/computations/:id/cancel → ComputationView (status 'cancelled'; 409 when already finished)
+ * Whoever may start computations (any signed-in user) may cancel them. Runners skip the chunks not
+ * yet begun; blocks and chunks already stored are kept.
+ */
+export type CancelComputationResponse = ComputationView;
 
 /** A runner process as its heartbeats show it. */
 export interface RunnerView {
@@ -331,7 +360,7 @@ export interface RunnerView {
 
 // ---------------------------------------------------------------- stored wheel levels
 
-export type LevelStatus = 'pending' | 'computing' | 'stored' | 'failed';
+export type LevelStatus = 'pending' | 'computing' | 'stored' | 'failed' | 'cancelled';
 
 /** Largest wheel level computed at first start (all levels 2..23). */
 export const LEVELS_SEEDED_UP_TO = 23;

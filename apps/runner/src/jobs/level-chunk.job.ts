@@ -9,6 +9,10 @@ export const levelChunk: JobHandler<LevelChunkJob> = async (ctx, job) => {
   const { db, cfg } = ctx;
   const state = await db.query(`SELECT status FROM computations WHERE id = $1`, [computationId]);
   if (!state.rowCount || state.rows[0].status === 'succeeded' || state.rows[0].status === 'failed') return;
+  if (state.rows[0].status === 'cancelled') {
+    ctx.log(`level ${prime}# chunk ${index + 1}/${chunks} skipped: computation ${computationId} was cancelled`);
+    return;
+  }
   const exists = await db.query(`SELECT 1 FROM level_chunks WHERE computation_id = $1 AND chunk_index = $2`, [computationId, index]);
   if (!exists.rowCount) {
     if (cfg.testPauseMs) await sleep(cfg.testPauseMs);
