@@ -24,6 +24,7 @@ import { InvitationsModule } from './invitations/invitations.module';
 import { CommentsModule } from './comments/comments.module';
 import { ReviewsModule } from './reviews/reviews.module';
 import { LocksModule } from './locks/locks.module';
+import { PresenceModule } from './presence/presence.module';
 
 @Module({
   imports: [
@@ -53,6 +54,7 @@ import { LocksModule } from './locks/locks.module';
     CommentsModule,
     ReviewsModule,
     LocksModule,
+    PresenceModule,
   ],
   providers: [SessionStoreService],
 })

@@ -282,7 +282,26 @@ export type NotebookEvent =
  * asked, changes asked, locked), a review request, a re-verification, a review (sign-off, or one
  * voided), the lock record, members or invitations.
  */
-export type NotebookStateTopic = 'status' | 'review' | 'verification' | 'lock' | 'members';
+export type NotebookStateTopic = 'status' | 'review' | 'verification' | 'lock' | 'members' | 'presence';
+
+/*
+ * Presence (who has the notebook open, and on which cell their editor has the focus):
+ *   GET    /api/notebooks/:id/presence                        → PresenceView[]
+ *   PUT    /api/notebooks/:id/presence   UpdatePresenceBody    → PresenceView[] (a tab's heartbeat)
+ *   DELETE /api/notebooks/:id/presence/:tabId                 → 204 (the tab closed)
+ * Changes arrive as `state` events with topic 'presence'.
+ */
+export interface UpdatePresenceBody {
+  tabId: string;
+  cellId?: string | null;
+}
+export interface PresenceView {
+  user: UserRef;
+  editingCellId: string | null;
+}
+/** A tab sends a heartbeat every PRESENCE_BEAT_MS; one quiet for PRESENCE_QUIET_MS counts as gone. */
+export const PRESENCE_BEAT_MS = 10_000;
+export const PRESENCE_QUIET_MS = 30_000;
 
 /** Small form of a run update; fetch GET /api/runs/:id for the outputs once `status` is final. */
 export interface RunProgressEvent {

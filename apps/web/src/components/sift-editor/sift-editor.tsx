@@ -17,6 +17,8 @@ export interface SiftEditorProps {
   onSave?: (text: string) => void;
   /** Ctrl/Cmd+Alt+N: a new cell below this one. */
   onAddBelow?: () => void;
+  /** The editor gained (true) or lost (false) the keyboard focus (presence: who edits which cell). */
+  onFocusChange?: (focused: boolean) => void;
   readOnly?: boolean;
   /** Accessible name of the editing area. */
   label: string;
@@ -42,10 +44,10 @@ function shortcutFor(e: { ctrlKey: boolean; metaKey: boolean; altKey: boolean; s
 }
 
 /** Monaco with the Sift mode; grows with its content (3 to 30 lines). Loaded lazily. */
-export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave, onAddBelow, readOnly, label, path, language = SIFT_LANGUAGE_ID }: SiftEditorProps) {
+export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave, onAddBelow, onFocusChange, readOnly, label, path, language = SIFT_LANGUAGE_ID }: SiftEditorProps) {
   // Latest callbacks for the commands registered once at mount.
-  const handlers = useRef({ onRun, onSave, onAddBelow });
-  handlers.current = { onRun, onSave, onAddBelow };
+  const handlers = useRef({ onRun, onSave, onAddBelow, onFocusChange });
+  handlers.current = { onRun, onSave, onAddBelow, onFocusChange };
   const editorRef = useRef<Parameters<OnMount>[0] | null>(null);
   // The editor owns its text while typing (a controlled value lags keystrokes and would undo them);
   // the parent replaces the text (taking the saved version) by changing `replaceKey`.
@@ -60,6 +62,8 @@ export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave,
     editorRef.current = editor;
     // Keys are handled by this editor's own key listener: `addCommand` bindings are shared by every
     // editor on the page (the last one created wins), so Ctrl+Enter in cell 1 would run the last cell.
+    editor.onDidFocusEditorText(() => handlers.current.onFocusChange?.(true));
+    editor.onDidBlurEditorText(() => handlers.current.onFocusChange?.(false));
     editor.onKeyDown((e) => {
       const action = shortcutFor(e);
       if (!action) return;

@@ -15,6 +15,7 @@ export function refreshCollaboration(qc: QueryClient, notebookId: string, topic:
     lock: [collabKeys.review(notebookId), collabKeys.lock(notebookId), collabKeys.audit(notebookId)],
     members: [collabKeys.invitations(notebookId), collabKeys.review(notebookId), collabKeys.audit(notebookId)],
     run: [collabKeys.review(notebookId), collabKeys.verifications(notebookId), ['verifications']],
+    presence: [],
   }[topic];
   for (const queryKey of keys) void qc.invalidateQueries({ queryKey });
 }

@@ -3,6 +3,7 @@ import { useQueryClient } from '@tanstack/react-query';
 import { useEffect, useRef } from 'react';
 import { getRun } from './get-run';
 import { notebookKeys } from './keys';
+import { presenceKey } from './use-presence';
 import { putCachedRun, updateCachedCells } from './notebook-cache';
 
 /**
@@ -36,6 +37,7 @@ export function useNotebookEvents(notebookId: string, onLive?: (topic: NotebookS
     };
     const onState = (msg: MessageEvent<string>) => {
       const event = JSON.parse(msg.data) as Extract<NotebookEvent, { type: 'state' }>;
+      if (event.topic === 'presence') return void qc.invalidateQueries({ queryKey: presenceKey(notebookId) });
       void qc.invalidateQueries({ queryKey: notebookKeys.detail(notebookId) });
       live.current?.(event.topic);
     };

@@ -26,10 +26,13 @@ interface Props {
   onMove: (cell: CellView, by: -1 | 1) => void;
   onDelete: (cell: CellView) => void;
   onAddBelow: (cell: CellView) => void;
+  /** Names of the others whose editor has the focus in this cell now (presence). */
+  othersEditing?: string[];
+  onEditingChange?: (cellId: string | null) => void;
 }
 
 /** One cell as a card of the lab record: kind, source, latest outputs, status line. */
-export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete, onAddBelow }: Props) {
+export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete, onAddBelow, othersEditing = [], onEditingChange }: Props) {
   const d = useCellDraft(cell);
   const runCell = useRunCell();
   const cancel = useCancelRun();
@@ -52,6 +55,10 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
         <Typography sx={{ fontFamily: monoFont, color: 'text.secondary', minWidth: 24 }}>{index + 1}</Typography>
         <Chip size="small" label={KIND_LABEL[cell.kind]} variant={cell.kind === 'claim' ? 'filled' : 'outlined'}
           sx={{ fontWeight: 600, letterSpacing: '0.08em', borderRadius: 1 }} />
+        {othersEditing.length > 0 && (
+          <Chip size="small" color="warning" variant="outlined" data-testid="cell-presence"
+            label={`${othersEditing.join(', ')} ${othersEditing.length === 1 ? 'is' : 'are'} editing`} />
+        )}
         <Box sx={{ flex: 1 }} />
         {cell.kind === 'note' && canEdit && (
           <Button onClick={() => (editingNote ? void d.save().then((s) => s && setEditingNote(false)) : setEditingNote(true))}>
@@ -75,6 +82,7 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
           onRun={(text) => void doRun(text)}
           onSave={(text) => void d.save(text)}
           onAddBelow={() => onAddBelow(cell)}
+          onFocusChange={(focused) => onEditingChange?.(focused ? cell.id : null)}
           readOnly={!canEdit}
           label={`Source of cell ${index + 1} (${cell.kind})`}
           path={`cell-${cell.id}.${cell.kind === 'note' ? 'md' : 'sift'}`}
