@@ -46,6 +46,9 @@ export function ReviewSection({ notebook, userId, siteRole, onChanged }: Props) 
   const isMineNow = (v: VerificationSummary | null | undefined): v is VerificationSummary =>
     !!v && v.requestedBy.id === userId && v.purpose === 'review' && v.revisionDigest === s.revisionDigest;
   const myVerification = [verification.data, ...(all.data ?? [])].find(isMineNow) ?? null;
+  const showForm = role === 'reviewer' && s.status === 'in_review' && !s.validSignoffs.some((r) => r.reviewer.id === userId);
+  // The review form then offers "Re-verify this revision yourself" itself: one button, not two.
+  const formOffersReverify = showForm && myVerification === null;
 
   return (
     <Stack spacing={2}>
@@ -69,7 +72,7 @@ export function ReviewSection({ notebook, userId, siteRole, onChanged }: Props) 
         {isOwner && s.status === 'draft' && (
           <Button variant="contained" onClick={() => request.mutate({})} disabled={request.isPending}>Ask for review</Button>
         )}
-        {canVerify && (
+        {canVerify && !formOffersReverify && (
           <Button variant="outlined" onClick={startReverify}
             disabled={reverify.isPending || verification.data?.status === 'running'}>
             Re-verify
@@ -98,7 +101,7 @@ export function ReviewSection({ notebook, userId, siteRole, onChanged }: Props) 
       {role === 'reviewer' && s.status === 'in_review' && s.validSignoffs.some((r) => r.reviewer.id === userId) && (
         <Alert severity="success" role="status">You signed off this revision.</Alert>
       )}
-      {role === 'reviewer' && s.status === 'in_review' && !s.validSignoffs.some((r) => r.reviewer.id === userId) && (
+      {showForm && (
         <ReviewForm notebookId={notebook.id} state={s} verification={myVerification} onChanged={onChanged}
           onReverify={startReverify} reverifying={reverify.isPending || verification.data?.status === 'running'} />
       )}

@@ -97,7 +97,7 @@ export function LevelsSection({ selected, onSelect }: Props) {
                   <TableCell align="right" className="mono">{l.largestGap ?? '—'}</TableCell>
                   <TableCell><Progress level={l} /></TableCell>
                   <TableCell>
-                    <Button onClick={() => onSelect(l.prime)} disabled={l.status !== 'stored'} aria-label={`Show level ${l.prime}`}>Histogram</Button>
+                    <Button onClick={() => onSelect(l.prime)} disabled={l.status !== 'stored'}>Show level {l.prime}</Button>
                   </TableCell>
                 </TableRow>
               ))}
