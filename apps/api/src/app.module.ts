@@ -25,6 +25,7 @@ import { CommentsModule } from './comments/comments.module';
 import { ReviewsModule } from './reviews/reviews.module';
 import { LocksModule } from './locks/locks.module';
 import { RecordsModule } from './records/records.module';
+import { PresenceModule } from './presence/presence.module';
 
 @Module({
   imports: [
@@ -55,6 +56,7 @@ import { RecordsModule } from './records/records.module';
     ReviewsModule,
     LocksModule,
     RecordsModule,
+    PresenceModule,
   ],
   providers: [SessionStoreService],
 })

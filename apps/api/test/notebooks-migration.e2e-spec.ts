@@ -28,7 +28,8 @@ describe('notebooks migration', () => {
     try {
       const applied = await ds.runMigrations({ transaction: 'each' });
       expect(applied.map((m) => m.name)).toContain('NotebooksAndRuns1796100000000');
-      expect(await functions()).toEqual(['cribra_notebooks_notify', 'cribra_runs_notify', 'cribra_tags_text']);
+      // (cribra_notebook_state_notify: the live-state triggers of 1797300000000.)
+      expect(await functions()).toEqual(['cribra_notebook_state_notify', 'cribra_notebooks_notify', 'cribra_runs_notify', 'cribra_tags_text']);
       // The generated search column and its index answer a full-text query.
       const [u] = await ds.query(`INSERT INTO users (email, display_name, password_hash) VALUES ('m@test.example', 'M', 'x') RETURNING id`);
       await ds.query(`INSERT INTO notebooks (title, summary, tags, owner_id) VALUES ('Wheel gaps', 'about sieves', '{jacobsthal}', $1)`, [u.id]);

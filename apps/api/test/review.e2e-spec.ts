@@ -210,6 +210,42 @@ describe('the review flow', () => {
   });
 });
 
+describe('the sign-off precondition', () => {
+  it("refuses a sign-off on the reviewer's own clean re-verify once the revision has moved on, and takes one of the current revision", async () => {
+    const { client: owner } = await newMember(app, 'owner');
+    const nb = await createNotebook(owner, 'Sign-off precondition');
+    created.push(nb.id);
+    await runAll(owner, nb.id);
+    const { client: reviewer } = await memberWithRole(app, owner, nb.id, 'reviewer');
+    expectStatus(await owner.call('post', `/api/notebooks/${nb.id}/review/request`, {}), 200);
+    const first = await reviewer.call('post', `/api/notebooks/${nb.id}/verifications`);
+    const old = await waitVerification(reviewer, first.body.id);
+    expect(old.allSame).toBe(true);
+
+    // The owner edits the note: a new revision (and digest) that the reviewer has not re-run.
+    const note = (await owner.call('get', `/api/notebooks/${nb.id}`)).body.cells.find((c: { kind: string }) => c.kind === 'note');
+    expectStatus(await owner.call('put', `/api/cells/${note.id}`, { revision: note.revision, source: 'A note: $p_n$, edited' }), 200);
+    if ((await owner.call('get', `/api/notebooks/${nb.id}`)).body.status !== 'in_review') {
+      expectStatus(await owner.call('post', `/api/notebooks/${nb.id}/review/request`, {}), 200);
+    }
+    const state: ReviewStateView = (await reviewer.call('get', `/api/notebooks/${nb.id}/review`)).body;
+    expect(state.revisionDigest).not.toBe(old.revisionDigest);
+    const stale = await reviewer.call('post', `/api/notebooks/${nb.id}/reviews`, {
+      decision: 'signoff', comment: 'Re-ran it earlier.', revisionDigest: state.revisionDigest, verificationId: old.id,
+    });
+    expectStatus(stale, 400);
+    expect(stale.body.details[0]).toEqual({ field: 'verificationId', messages: ['not a re-verify of this revision'] });
+
+    const again = await reviewer.call('post', `/api/notebooks/${nb.id}/verifications`);
+    const current = await waitVerification(reviewer, again.body.id);
+    const ok = await reviewer.call('post', `/api/notebooks/${nb.id}/reviews`, {
+      decision: 'signoff', comment: 'Re-ran this revision.', revisionDigest: state.revisionDigest, verificationId: current.id,
+    });
+    expectStatus(ok, 201);
+    expect(ok.body).toMatchObject({ decision: 'signoff', valid: true });
+  });
+});
+
 describe('re-verify against tampered records', () => {
   let owner: Client;
   let reviewer: Client;

@@ -308,7 +308,34 @@ export interface RunAllResponse {
 /** Server-sent events on /api/notebooks/:id/events (event name = `type`). */
 export type NotebookEvent =
   | { type: 'run'; run: RunProgressEvent }
-  | { type: 'notebook'; notebookId: string; revision: number };
+  | { type: 'notebook'; notebookId: string; revision: number }
+  | { type: 'state'; notebookId: string; topic: NotebookStateTopic };
+
+/**
+ * What changed when a `state` event arrives (no revision moves with these): the status (review
+ * asked, changes asked, locked), a review request, a re-verification, a review (sign-off, or one
+ * voided), the lock record, members or invitations.
+ */
+export type NotebookStateTopic = 'status' | 'review' | 'verification' | 'lock' | 'members' | 'presence';
+
+/*
+ * Presence (who has the notebook open, and on which cell their editor has the focus):
+ *   GET    /api/notebooks/:id/presence                        → PresenceView[]
+ *   PUT    /api/notebooks/:id/presence   UpdatePresenceBody    → PresenceView[] (a tab's heartbeat)
+ *   DELETE /api/notebooks/:id/presence/:tabId                 → 204 (the tab closed)
+ * Changes arrive as `state` events with topic 'presence'.
+ */
+export interface UpdatePresenceBody {
+  tabId: string;
+  cellId?: string | null;
+}
+export interface PresenceView {
+  user: UserRef;
+  editingCellId: string | null;
+}
+/** A tab sends a heartbeat every PRESENCE_BEAT_MS; one quiet for PRESENCE_QUIET_MS counts as gone. */
+export const PRESENCE_BEAT_MS = 10_000;
+export const PRESENCE_QUIET_MS = 30_000;
 
 /** Small form of a run update; fetch GET /api/runs/:id for the outputs once `status` is final. */
 export interface RunProgressEvent {
@@ -324,7 +351,8 @@ export interface RunProgressEvent {
 // ---------------------------------------------------------------- computations (chunked jobs)
 
 export type ComputationKind = 'level' | 'ledger';
-export type ComputationStatus = 'queued' | 'running' | 'succeeded' | 'failed';
+export type ComputationStatus = 'queued' | 'running' | 'succeeded' | 'failed' | 'cancelled';
+export const ACTIVE_COMPUTATION_STATUSES: readonly ComputationStatus[] = ['queued', 'running'];
 
 export interface ComputationView {
   id: string;
@@ -336,9 +364,37 @@ export interface ComputationView {
   chunksDone: number;
   requestedBy: UserRef | null;
   createdAt: string;
+  /** When a runner planned it (its chunks were queued); elapsed time counts from here. */
+  startedAt: string | null;
   finishedAt: string | null;
   error: string | null;
 }
+
+/**
+ * Measured costs behind the Data page's estimates (docs/scaling.md, "Measured costs"): one runner
+ * slot on the 2-core development machine under the load of parallel work. A request estimated
+ * above ESTIMATE_CONFIRM_MS asks for confirmation first.
+ */
+export const COSTS = {
+  /** Ledger blocks 0–99 (up to 10^9) as one computation, one runner with one slot: 8.3 s. */
+  ledgerBlockMs: 83,
+  /**
+   * Whole wheel levels, request → stored, one runner slot (31#: 12.5 s; 37#: 261 s). Levels up to 29
+   * take under a second. 41#, 43#, 47# go by the split route (SPLIT_ROUTE_FROM): the engine's bench
+   * measured 1.4–2.9 s, 3.8–4.3 s and 16.6–19.0 s of wall time for them on a loaded machine
+   * (docs/benchmarks.md); the figures here round those up, as bench figures, not request → stored.
+   */
+  levelMs: { 31: 12_500, 37: 261_000, 41: 3_000, 43: 5_000, 47: 20_000 } as Record<number, number>,
+} as const;
+export const ESTIMATE_CONFIRM_MS = 60_000;
+
+/**
+ * Cancel a computation:
+ *   POST /api/computations/:id/cancel → ComputationView (status 'cancelled'; 409 when already finished)
+ * Whoever may start computations (any signed-in user) may cancel them. Runners skip the chunks not
+ * yet begun; blocks and chunks already stored are kept.
+ */
+export type CancelComputationResponse = ComputationView;
 
 /** A runner process as its heartbeats show it. */
 export interface RunnerView {
@@ -361,7 +417,7 @@ export interface RunnerView {
 
 // ---------------------------------------------------------------- stored wheel levels
 
-export type LevelStatus = 'pending' | 'computing' | 'stored' | 'failed';
+export type LevelStatus = 'pending' | 'computing' | 'stored' | 'failed' | 'cancelled';
 
 /** Largest wheel level computed at first start (all levels 2..23). */
 export const LEVELS_SEEDED_UP_TO = 23;

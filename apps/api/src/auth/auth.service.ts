@@ -5,6 +5,7 @@ import { createHash, randomBytes } from 'node:crypto';
 import { DataSource, IsNull, MoreThan, Repository } from 'typeorm';
 import { RESET_PASSWORD_PATH } from '@cribra/contracts';
 import { appConfig } from '../config/app.config';
+import { composeMail } from '../mail/compose-mail';
 import { MailService } from '../mail/mail.service';
 import { UserEntity } from '../users/user.entity';
 import { UsersService } from '../users/users.service';
@@ -71,14 +72,13 @@ export class AuthService {
     });
     const link = `${this.cfg.publicUrl}${RESET_PASSWORD_PATH}?token=${token}`;
     try {
-      await this.mail.send({
-        to: user.email,
-        subject: 'Reset your Cribra password',
-        text:
-          `Hello ${user.displayName},\n\nSomeone (hopefully you) asked to reset the password of your Cribra account.\n` +
-          `Open this link within one hour to choose a new password:\n\n${link}\n\n` +
-          `The link works once. If you did not ask for it, ignore this message; your password stays as it is.\n`,
+      const body = composeMail({
+        greeting: `Hello ${user.displayName},`,
+        intro: ['Someone (hopefully you) asked to reset the password of your Cribra account. Open this link within one hour to choose a new password.'],
+        link: { href: link, label: 'Choose a new password' },
+        outro: ['The link works once. If you did not ask for it, ignore this message; your password stays as it is.'],
       });
+      await this.mail.send({ to: user.email, subject: 'Reset your Cribra password', ...body });
     } catch (err) {
       this.logger.error(`Could not send the reset mail: ${(err as Error).message}`);
     }

@@ -5,6 +5,7 @@ import { DataSource, EntityManager } from 'typeorm';
 import type { CommentAnchor, CommentThreadView, CommentView, ThreadStatus, UserRef } from '@cribra/contracts';
 import { AuditService } from '../audit/audit.service';
 import { appConfig } from '../config/app.config';
+import { composeMail } from '../mail/compose-mail';
 import { MailService } from '../mail/mail.service';
 import type { Actor } from '../members/notebook-policy.service';
 import { CommentBodyDto } from './dto/comment-body.dto';
@@ -193,13 +194,14 @@ export class CommentsService {
     const excerpt = body.length > 600 ? `${body.slice(0, 600)}…` : body;
     for (const r of rows) {
       try {
-        await this.mail.send({
-          to: r.email,
-          subject: `${r.actor_name} mentioned you in "${r.title}"`,
-          text:
-            `Hello ${r.display_name},\n\n${r.actor_name} mentioned you in a comment on the notebook "${r.title}":\n\n` +
-            `${excerpt}\n\nOpen the notebook: ${this.cfg.publicUrl}/notebooks/${notebookId}\n`,
+        const content = composeMail({
+          greeting: `Hello ${r.display_name},`,
+          intro: [`${r.actor_name} mentioned you in a comment on the notebook "${r.title}":`],
+          quote: excerpt,
+          link: { href: `${this.cfg.publicUrl}/notebooks/${notebookId}`, label: 'Open the notebook' },
+          outro: [],
         });
+        await this.mail.send({ to: r.email, subject: `${r.actor_name} mentioned you in "${r.title}"`, ...content });
       } catch (err) {
         // A comment is saved even when the SMTP server is down; the mention stays visible in the thread.
         this.logger.warn(`Could not mail a mention to ${r.email}: ${(err as Error).message}`);

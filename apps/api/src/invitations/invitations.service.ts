@@ -25,6 +25,7 @@ import {
 import { AuditService } from '../audit/audit.service';
 import type { InvitationGate } from '../auth/invitation-gate';
 import { appConfig } from '../config/app.config';
+import { invitationMail } from './invitation-mail';
 import { MailService } from '../mail/mail.service';
 import type { Actor } from '../members/notebook-policy.service';
 import type { UserEntity } from '../users/user.entity';
@@ -226,17 +227,11 @@ export class InvitationsService implements InvitationGate, OnModuleInit, OnModul
     await this.db.query(`UPDATE invitations SET token_hash = $2, delivery = 'sending' WHERE id = $1`, [id, hash]);
     const link = `${this.cfg.publicUrl}${INVITATION_PATH}/${token}`;
     const expires = new Date(r.expires_at).toISOString().slice(0, 10);
-    const note = r.message ? `\nTheir note:\n\n${r.message}\n` : '';
+    const mail = invitationMail({
+      inviterName: r.inviter_name, notebookTitle: r.notebook_title, role: r.role, message: r.message, link, expires,
+    });
     try {
-      await this.mail.send({
-        to: r.email,
-        subject: `${r.inviter_name} invites you to the Cribra notebook "${r.notebook_title}"`,
-        text:
-          `Hello,\n\n${r.inviter_name} invites you to join the notebook "${r.notebook_title}" on Cribra as ${r.role}.\n${note}\n` +
-          `Open this link to sign in (or create an account with this address) and join:\n\n${link}\n\n` +
-          `The link works once and expires on ${expires} (${INVITATION_TTL_DAYS} days). ` +
-          `If you do not know the sender, ignore this message.\n`,
-      });
+      await this.mail.send({ to: r.email, subject: mail.subject, text: mail.text, html: mail.html });
       await this.db.query(
         `UPDATE invitations SET delivery = 'sent', sent_at = now(), delivery_attempts = delivery_attempts + 1,
                 delivery_error = NULL, next_attempt_at = NULL

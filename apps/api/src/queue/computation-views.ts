@@ -11,13 +11,14 @@ interface ComputationRow {
   requested_by: string | null;
   requested_by_name: string | null;
   created_at: Date;
+  started_at: Date | null;
   finished_at: Date | null;
   error: string | null;
 }
 
 const SELECT = `
   SELECT c.id, c.kind, c.params, c.status, c.chunks_total, c.chunks_done, c.requested_by,
-         u.display_name AS requested_by_name, c.created_at, c.finished_at, c.error
+         u.display_name AS requested_by_name, c.created_at, c.started_at, c.finished_at, c.error
     FROM computations c LEFT JOIN users u ON u.id = c.requested_by`;
 
 const toView = (r: ComputationRow): ComputationView => ({
@@ -29,6 +30,7 @@ const toView = (r: ComputationRow): ComputationView => ({
   chunksDone: r.chunks_done,
   requestedBy: r.requested_by ? { id: r.requested_by, displayName: r.requested_by_name ?? '' } : null,
   createdAt: new Date(r.created_at).toISOString(),
+  startedAt: r.started_at ? new Date(r.started_at).toISOString() : null,
   finishedAt: r.finished_at ? new Date(r.finished_at).toISOString() : null,
   error: r.error,
 });

@@ -1,8 +1,9 @@
-import { Controller, Get, Param, ParseUUIDPipe, Query, UseGuards } from '@nestjs/common';
+import { Controller, Get, HttpCode, Param, ParseUUIDPipe, Post, Query, UseGuards } from '@nestjs/common';
 import { ApiCookieAuth, ApiOperation, ApiPropertyOptional, ApiTags } from '@nestjs/swagger';
 import { IsIn, IsOptional } from 'class-validator';
 import type { ComputationKind, ComputationStatus, ComputationView } from '@cribra/contracts';
-import { SignedInGuard } from '../common';
+import { CurrentUser, SignedInGuard } from '../common';
+import type { Actor } from '../members/notebook-policy.service';
 import { ComputationsService } from './computations.service';
 
 export class ListComputationsDto {
@@ -11,9 +12,9 @@ export class ListComputationsDto {
   @IsIn(['level', 'ledger'], { message: 'kind must be level or ledger' })
   kind?: ComputationKind;
 
-  @ApiPropertyOptional({ enum: ['queued', 'running', 'succeeded', 'failed'] })
+  @ApiPropertyOptional({ enum: ['queued', 'running', 'succeeded', 'failed', 'cancelled'] })
   @IsOptional()
-  @IsIn(['queued', 'running', 'succeeded', 'failed'], { message: 'status must be queued, running, succeeded or failed' })
+  @IsIn(['queued', 'running', 'succeeded', 'failed', 'cancelled'], { message: 'status must be queued, running, succeeded, failed or cancelled' })
   status?: ComputationStatus;
 }
 
@@ -34,5 +35,12 @@ export class ComputationsController {
   @ApiOperation({ summary: 'One computation with its chunk progress' })
   get(@Param('id', ParseUUIDPipe) id: string): Promise<ComputationView> {
     return this.computations.get(id);
+  }
+
+  @Post(':id/cancel')
+  @HttpCode(200)
+  @ApiOperation({ summary: 'Cancel a queued or running computation (runners skip the rest; stored blocks and chunks stay)' })
+  cancel(@CurrentUser() actor: Actor, @Param('id', ParseUUIDPipe) id: string): Promise<ComputationView> {
+    return this.computations.cancel(actor, id);
   }
 }

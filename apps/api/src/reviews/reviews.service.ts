@@ -5,6 +5,7 @@ import { DataSource, EntityManager } from 'typeorm';
 import type { NotebookStatus, ReviewStateView, ReviewView, StaleDigestDetails } from '@cribra/contracts';
 import { AuditService } from '../audit/audit.service';
 import { appConfig } from '../config/app.config';
+import { composeMail, type MailContent } from '../mail/compose-mail';
 import { MailService } from '../mail/mail.service';
 import type { Actor } from '../members/notebook-policy.service';
 import { CreateReviewDto } from './dto/create-review.dto';
@@ -86,9 +87,9 @@ export class ReviewsService {
     return `${this.cfg.publicUrl}/notebooks/${notebookId}`;
   }
 
-  private async mailQuietly(to: string, subject: string, text: string): Promise<void> {
+  private async mailQuietly(to: string, subject: string, content: MailContent): Promise<void> {
     try {
-      await this.mail.send({ to, subject, text });
+      await this.mail.send({ to, subject, ...composeMail(content) });
     } catch (err) {
       this.logger.warn(`Could not mail "${subject}" to ${to}: ${(err as Error).message}`);
     }
@@ -181,9 +182,13 @@ export class ReviewsService {
       await this.mailQuietly(
         r.email,
         `Review requested: "${nb.title}"`,
-        `Hello ${r.display_name},\n\nThe owner asks you to review the notebook "${nb.title}".\n` +
-          (message ? `\nTheir note:\n\n${message}\n` : '') +
-          `\nRe-verify it and sign off or ask for changes: ${this.link(notebookId)}\n`,
+        {
+          greeting: `Hello ${r.display_name},`,
+          intro: [`The owner asks you to review the notebook "${nb.title}".`, ...(message ? ['Their note:'] : [])],
+          quote: message || undefined,
+          link: { href: this.link(notebookId), label: 'Re-verify it, then sign off or ask for changes' },
+          outro: [],
+        },
       );
     }
     return this.state(notebookId);
@@ -258,7 +263,13 @@ export class ReviewsService {
       await this.mailQuietly(
         owner[0].email,
         `${owner[0].reviewer} ${what} "${owner[0].title}"`,
-        `${owner[0].reviewer} ${what} the notebook "${owner[0].title}":\n\n${body.comment}\n\n${this.link(notebookId)}\n`,
+        {
+          greeting: 'Hello,',
+          intro: [`${owner[0].reviewer} ${what} the notebook "${owner[0].title}":`],
+          quote: body.comment,
+          link: { href: this.link(notebookId), label: 'Open the notebook' },
+          outro: [],
+        },
       );
     }
     const rows: ReviewRow[] = await this.db.query(`${SELECT_REVIEWS} WHERE r.id = $1`, [id]);
@@ -300,8 +311,12 @@ export class ReviewsService {
       await this.mailQuietly(
         u.email,
         `Your sign-off of "${v.title}" no longer holds`,
-        `Hello ${u.display_name},\n\nThe notebook "${v.title}" changed after you signed it off (it is now at revision ${v.revision}), ` +
-          `so your sign-off was voided and the notebook is back in review.\n\nRe-verify and sign off again: ${this.link(notebookId)}\n`,
+        {
+          greeting: `Hello ${u.display_name},`,
+          intro: [`The notebook "${v.title}" changed after you signed it off (it is now at revision ${v.revision}), so your sign-off was voided and the notebook is back in review.`],
+          link: { href: this.link(notebookId), label: 'Re-verify and sign off again' },
+          outro: [],
+        },
       );
     }
     return voided.length;

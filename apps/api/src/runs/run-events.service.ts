@@ -2,7 +2,7 @@ import { Inject, Injectable, Logger, OnModuleDestroy, OnModuleInit } from '@nest
 import type { ConfigType } from '@nestjs/config';
 import type { Notification } from 'pg';
 import { Observable, Subject, filter, interval, map, merge } from 'rxjs';
-import type { NotebookEvent, RunProgressEvent } from '@cribra/contracts';
+import type { NotebookEvent, NotebookStateTopic, RunProgressEvent } from '@cribra/contracts';
 import { appConfig } from '../config/app.config';
 import { PgListener } from '@cribra/pg-listen';
 
@@ -14,7 +14,8 @@ export interface SseMessage {
 
 /**
  * Listens to PostgreSQL notifications (`cribra_runs` from a trigger on runs, `cribra_notebooks`
- * from a trigger on notebook revisions) and fans them out as server-sent events. Runners on other
+ * from a trigger on notebook revisions, `cribra_notebook_state` from triggers on status, reviews,
+ * re-verifications, locks and members) and fans them out as server-sent events. Runners on other
  * machines only write rows; every API process hears them through the database.
  */
 @Injectable()
@@ -24,7 +25,7 @@ export class RunEventsService implements OnModuleInit, OnModuleDestroy {
   private readonly listener: PgListener;
 
   constructor(@Inject(appConfig.KEY) cfg: ConfigType<typeof appConfig>) {
-    this.listener = new PgListener({ databaseUrl: cfg.databaseUrl, channels: ['cribra_runs', 'cribra_notebooks'], onNotification: (msg) => this.heard(msg), log: this.logger });
+    this.listener = new PgListener({ databaseUrl: cfg.databaseUrl, channels: ['cribra_runs', 'cribra_notebooks', 'cribra_notebook_state'], onNotification: (msg) => this.heard(msg), log: this.logger });
   }
 
   async onModuleInit(): Promise<void> {
@@ -36,6 +37,7 @@ export class RunEventsService implements OnModuleInit, OnModuleDestroy {
     try {
       const payload = JSON.parse(msg.payload);
       if (msg.channel === 'cribra_runs') this.events.next({ type: 'run', run: payload as RunProgressEvent });
+      else if (msg.channel === 'cribra_notebook_state') this.events.next({ type: 'state', notebookId: payload.notebookId, topic: payload.topic as NotebookStateTopic });
       else this.events.next({ type: 'notebook', notebookId: payload.notebookId, revision: payload.revision });
     } catch {
       this.logger.warn(`Ignored a malformed notification on ${msg.channel}`);

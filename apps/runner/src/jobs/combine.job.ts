@@ -10,6 +10,12 @@ export async function sendCombine(ctx: JobContext, computationId: string): Promi
   await ctx.boss.send(QUEUES.combine, job, { ...jobOptions(ctx.cfg), singletonKey: computationId });
 }
 
+/** True when the computation was cancelled (runners then skip its chunks not yet begun). */
+export async function isCancelled(ctx: JobContext, computationId: string): Promise<boolean> {
+  const { rows } = await ctx.db.query(`SELECT status FROM computations WHERE id = $1`, [computationId]);
+  return rows[0]?.status === 'cancelled';
+}
+
 /** Ledger ranges need no combine step (blocks are combined on read): recount and close. */
 export async function finishLedgerIfComplete(ctx: JobContext, computationId: string): Promise<void> {
   await ctx.db.query(
@@ -31,7 +37,7 @@ export const combine: JobHandler<CombineJob> = async (ctx, job) => {
   const { db, cfg } = ctx;
   const { computationId } = job.data;
   const { rows } = await db.query(`SELECT kind, params, status, chunks_total FROM computations WHERE id = $1`, [computationId]);
-  if (!rows.length || rows[0].status === 'succeeded') return;
+  if (!rows.length || rows[0].status === 'succeeded' || rows[0].status === 'cancelled') return;
   const c = rows[0] as { kind: string; params: { prime: number }; chunks_total: number };
   if (c.kind === 'ledger') return finishLedgerIfComplete(ctx, computationId);
   const chunks = await db.query(`SELECT summary FROM level_chunks WHERE computation_id = $1 ORDER BY chunk_index`, [computationId]);

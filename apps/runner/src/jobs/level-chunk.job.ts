@@ -8,8 +8,11 @@ export const levelChunk: JobHandler<LevelChunkJob> = async (ctx, job) => {
   const { computationId, prime, index, chunks, base, quadsOf, radix, split } = job.data;
   const { db, cfg } = ctx;
   const state = await db.query(`SELECT status FROM computations WHERE id = $1`, [computationId]);
-  // only work for a computation still under way (not finished, failed or stopped)
-  if (!state.rowCount || !['queued', 'running'].includes(state.rows[0].status)) return;
+  if (!state.rowCount || state.rows[0].status === 'succeeded' || state.rows[0].status === 'failed') return;
+  if (state.rows[0].status === 'cancelled') {
+    ctx.log(`level ${prime}# chunk ${index + 1}/${chunks} skipped: computation ${computationId} was cancelled`);
+    return;
+  }
   const exists = await db.query(`SELECT 1 FROM level_chunks WHERE computation_id = $1 AND chunk_index = $2`, [computationId, index]);
   if (!exists.rowCount) {
     if (cfg.testPauseMs) await sleep(cfg.testPauseMs);

@@ -15,7 +15,7 @@ export const plan: JobHandler<PlanJob> = async (ctx, job) => {
   const { rows } = await db.query(`SELECT id, kind, params, status FROM computations WHERE id = $1`, [job.data.computationId]);
   if (!rows.length) return;
   const c = rows[0] as { id: string; kind: 'level' | 'ledger'; params: Record<string, number | string>; status: string };
-  if (c.status === 'succeeded' || c.status === 'failed') return;
+  if (c.status === 'succeeded' || c.status === 'failed' || c.status === 'cancelled') return;
   if (c.kind === 'level') await planLevel(ctx, c.id, Number(c.params.prime));
   else await planLedger(ctx, c.id, Number(c.params.firstBlock), Number(c.params.lastBlock));
 };
@@ -34,10 +34,10 @@ async function planLevel(ctx: JobContext, id: string, prime: number): Promise<vo
   );
   const route = split ? { split: true } : quadsOf === undefined ? {} : { quadsOf, radix };
   await ctx.db.query(
-    `UPDATE computations SET chunks_total = $2, status = 'running', started_at = coalesce(started_at, now()) WHERE id = $1`,
+    `UPDATE computations SET chunks_total = $2, status = 'running', started_at = coalesce(started_at, now()) WHERE id = $1 AND status IN ('queued', 'running')`,
     [id, chunks],
   );
-  await ctx.db.query(`UPDATE wheel_levels SET status = 'computing' WHERE prime = $1 AND computation_id = $2`, [prime, id]);
+  await ctx.db.query(`UPDATE wheel_levels SET status = 'computing' WHERE prime = $1 AND computation_id = $2 AND status = 'pending'`, [prime, id]);
   const { rows } = await ctx.db.query(`SELECT chunk_index FROM level_chunks WHERE computation_id = $1`, [id]);
   const done = new Set(rows.map((r: { chunk_index: number }) => r.chunk_index));
   const jobs: LevelChunkJob[] = [];
@@ -52,7 +52,7 @@ async function planLevel(ctx: JobContext, id: string, prime: number): Promise<vo
 
 async function planLedger(ctx: JobContext, id: string, first: number, last: number): Promise<void> {
   await ctx.db.query(
-    `UPDATE computations SET chunks_total = $2, status = 'running', started_at = coalesce(started_at, now()) WHERE id = $1`,
+    `UPDATE computations SET chunks_total = $2, status = 'running', started_at = coalesce(started_at, now()) WHERE id = $1 AND status IN ('queued', 'running')`,
     [id, last - first + 1],
   );
   const { rows } = await ctx.db.query(`SELECT block_index FROM ledger_blocks WHERE block_index BETWEEN $1 AND $2`, [first, last]);

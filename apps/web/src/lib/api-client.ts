@@ -9,6 +9,8 @@ export interface RequestOptions {
   signal?: AbortSignal;
   /** Extra query string parameters; undefined values are left out. */
   query?: Record<string, string | number | boolean | undefined>;
+  /** Let the request outlive the page (a tab saying goodbye as it closes). */
+  keepalive?: boolean;
 }
 
 const API_BASE = '/api';
@@ -60,6 +62,7 @@ async function send<T>(path: string, opts: RequestOptions, csrf?: string): Promi
       body: opts.body === undefined ? undefined : isForm ? (opts.body as FormData) : JSON.stringify(opts.body),
       credentials: 'same-origin',
       signal: opts.signal,
+      keepalive: opts.keepalive,
     });
   } catch (e) {
     if ((e as Error)?.name === 'AbortError') throw e;

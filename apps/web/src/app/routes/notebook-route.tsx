@@ -1,4 +1,5 @@
 import { useQueryClient } from '@tanstack/react-query';
+import { refreshCollaboration } from '../../features/collaboration/api/refresh-live';
 import { CollaborationPanel } from '../../features/collaboration/components/collaboration-panel';
 import { notebookKeys } from '../../features/notebooks/api/keys';
 import { canEditCells } from '../../features/notebooks/lib/permissions';
@@ -13,6 +14,7 @@ export default function NotebookRoute() {
   const me = useCurrentUser();
   return (
     <NotebookPage
+      onLiveChange={(notebookId, topic) => refreshCollaboration(qc, notebookId, topic)}
       sidePanel={(nb) => (
         <CollaborationPanel
           notebook={nb}

@@ -17,6 +17,8 @@ export interface SiftEditorProps {
   onSave?: (text: string) => void;
   /** Ctrl/Cmd+Alt+N: a new cell below this one. */
   onAddBelow?: () => void;
+  /** The editor gained (true) or lost (false) the keyboard focus (presence: who edits which cell). */
+  onFocusChange?: (focused: boolean) => void;
   readOnly?: boolean;
   /** Accessible name of the editing area. */
   label: string;
@@ -29,11 +31,23 @@ export interface SiftEditorProps {
 
 const LINE_HEIGHT = 19;
 
+type Shortcut = 'run' | 'save' | 'addBelow';
+
+/** Ctrl/Cmd+Enter runs, Ctrl/Cmd+S saves, Ctrl/Cmd+Alt+N adds a query below (the hint line says so). */
+function shortcutFor(e: { ctrlKey: boolean; metaKey: boolean; altKey: boolean; shiftKey: boolean; keyCode: number }): Shortcut | null {
+  const { KeyCode } = monaco;
+  if (!(e.ctrlKey || e.metaKey) || e.shiftKey) return null;
+  if (e.altKey) return e.keyCode === KeyCode.KeyN ? 'addBelow' : null;
+  if (e.keyCode === KeyCode.Enter) return 'run';
+  if (e.keyCode === KeyCode.KeyS) return 'save';
+  return null;
+}
+
 /** Monaco with the Sift mode; grows with its content (3 to 30 lines). Loaded lazily. */
-export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave, onAddBelow, readOnly, label, path, language = SIFT_LANGUAGE_ID }: SiftEditorProps) {
+export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave, onAddBelow, onFocusChange, readOnly, label, path, language = SIFT_LANGUAGE_ID }: SiftEditorProps) {
   // Latest callbacks for the commands registered once at mount.
-  const handlers = useRef({ onRun, onSave, onAddBelow });
-  handlers.current = { onRun, onSave, onAddBelow };
+  const handlers = useRef({ onRun, onSave, onAddBelow, onFocusChange });
+  handlers.current = { onRun, onSave, onAddBelow, onFocusChange };
   const editorRef = useRef<Parameters<OnMount>[0] | null>(null);
   // The editor owns its text while typing (a controlled value lags keystrokes and would undo them);
   // the parent replaces the text (taking the saved version) by changing `replaceKey`.
@@ -46,10 +60,20 @@ export default function SiftEditor({ value, replaceKey, onChange, onRun, onSave,
 
   const onMount: OnMount = (editor) => {
     editorRef.current = editor;
-    const { KeyMod, KeyCode } = monaco;
-    editor.addCommand(KeyMod.CtrlCmd | KeyCode.Enter, () => handlers.current.onRun?.(editor.getValue()));
-    editor.addCommand(KeyMod.CtrlCmd | KeyCode.KeyS, () => handlers.current.onSave?.(editor.getValue()));
-    editor.addCommand(KeyMod.CtrlCmd | KeyMod.Alt | KeyCode.KeyN, () => handlers.current.onAddBelow?.());
+    // Keys are handled by this editor's own key listener: `addCommand` bindings are shared by every
+    // editor on the page (the last one created wins), so Ctrl+Enter in cell 1 would run the last cell.
+    editor.onDidFocusEditorText(() => handlers.current.onFocusChange?.(true));
+    editor.onDidBlurEditorText(() => handlers.current.onFocusChange?.(false));
+    editor.onKeyDown((e) => {
+      const action = shortcutFor(e);
+      if (!action) return;
+      e.preventDefault();
+      e.stopPropagation();
+      const h = handlers.current;
+      if (action === 'run') h.onRun?.(editor.getValue());
+      else if (action === 'save') h.onSave?.(editor.getValue());
+      else h.onAddBelow?.();
+    });
     const model = editor.getModel();
     if (model && language === SIFT_LANGUAGE_ID) updateDiagnostics(monaco, model, siftService);
   };

@@ -20,7 +20,7 @@ export function ProfileForm({ user }: { user: UserView }) {
 
   return (
     <Stack component="form" noValidate onSubmit={submit} spacing={2} aria-label="Profile">
-      <TextField label="E-mail" value={user.email} disabled helperText="Your sign-in address." />
+      <TextField label="E-mail" value={user.email} helperText="Your sign-in address." slotProps={{ htmlInput: { readOnly: true } }} />
       <TextField label="Display name" value={displayName} onChange={(e) => setDisplayName(e.target.value)}
         error={!!problem} helperText={problem ?? 'Shown beside your cells, comments and sign-offs.'} />
       {update.isSuccess && unchanged && <Alert severity="success" role="status">Display name saved.</Alert>}

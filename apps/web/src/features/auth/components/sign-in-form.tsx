@@ -7,6 +7,8 @@ import { useSignIn } from '../api/sign-in';
 
 interface Props {
   onSignedIn: (user: UserView) => void;
+  /** Filled in when the page was reached from an invitation (the invited address). */
+  initialEmail?: string;
 }
 
 function serverMessage(err: unknown): string {
@@ -14,8 +16,8 @@ function serverMessage(err: unknown): string {
   return errorMessage(err);
 }
 
-export function SignInForm({ onSignedIn }: Props) {
-  const [email, setEmail] = useState('');
+export function SignInForm({ onSignedIn, initialEmail = '' }: Props) {
+  const [email, setEmail] = useState(initialEmail);
   const [password, setPassword] = useState('');
   const [problems, setProblems] = useState<{ email?: string; password?: string }>({});
   const signIn = useSignIn();

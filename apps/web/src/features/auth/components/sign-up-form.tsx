@@ -8,12 +8,14 @@ import { useSignUp } from '../api/sign-up';
 interface Props {
   invitationToken?: string;
   onSignedUp: (user: UserView) => void;
+  /** Filled in when the page was reached from an invitation (the invited address). */
+  initialEmail?: string;
 }
 
 type Field = 'email' | 'displayName' | 'password';
 
-export function SignUpForm({ invitationToken, onSignedUp }: Props) {
-  const [values, setValues] = useState<Record<Field, string>>({ email: '', displayName: '', password: '' });
+export function SignUpForm({ invitationToken, onSignedUp, initialEmail = '' }: Props) {
+  const [values, setValues] = useState<Record<Field, string>>({ email: initialEmail, displayName: '', password: '' });
   const [problems, setProblems] = useState<Partial<Record<Field, string>>>({});
   const signUp = useSignUp();
   const serverFields = signUp.error instanceof ApiRequestError ? signUp.error.fieldErrors : {};

@@ -10,17 +10,22 @@ export default function SignInPage() {
   const [params] = useSearchParams();
   const navigate = useNavigate();
   const next = safeNextPath(params.get('next'));
+  // An invitation's link passes the invited address on (`?email=`); it is only a default.
+  const email = params.get('email') ?? '';
+  const signUpQuery = new URLSearchParams();
+  if (params.get('next')) signUpQuery.set('next', next);
+  if (email) signUpQuery.set('email', email);
   return (
     <AuthCard
       title="Sign in"
       footer={
         <>
-          <Link component={RouterLink} to={`/sign-up${params.get('next') ? `?next=${encodeURIComponent(next)}` : ''}`}>Create an account</Link>
+          <Link component={RouterLink} to={`/sign-up${signUpQuery.size ? `?${signUpQuery}` : ''}`}>Create an account</Link>
           <Link component={RouterLink} to="/reset">Forgot your password?</Link>
         </>
       }
     >
-      <SignInForm onSignedIn={() => navigate(next, { replace: true })} />
+      <SignInForm initialEmail={email} onSignedIn={() => navigate(next, { replace: true })} />
     </AuthCard>
   );
 }

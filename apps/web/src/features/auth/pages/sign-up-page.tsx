@@ -13,6 +13,7 @@ export default function SignUpPage() {
     <AuthCard title="Create an account" footer={<Link component={RouterLink} to="/sign-in">I already have an account</Link>}>
       <SignUpForm
         invitationToken={params.get('invitation') ?? undefined}
+        initialEmail={params.get('email') ?? ''}
         onSignedUp={() => navigate(safeNextPath(params.get('next')), { replace: true })}
       />
     </AuthCard>

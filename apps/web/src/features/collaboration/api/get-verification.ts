@@ -19,7 +19,9 @@ export function useVerification(id: string | null | undefined, notebookId: strin
   });
   const done = q.data?.status === 'done';
   useEffect(() => {
-    if (done) void qc.invalidateQueries({ queryKey: collabKeys.review(notebookId) });
+    if (!done) return;
+    void qc.invalidateQueries({ queryKey: collabKeys.review(notebookId) });
+    void qc.invalidateQueries({ queryKey: collabKeys.verifications(notebookId) });
   }, [done, notebookId, qc]);
   return q;
 }

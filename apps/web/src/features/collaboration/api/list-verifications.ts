@@ -8,9 +8,10 @@ export function listVerifications(notebookId: string, signal?: AbortSignal): Pro
   return api.get<VerificationSummary[]>(`/notebooks/${notebookId}/verifications`, { signal });
 }
 
-export function useVerifications(notebookId: string) {
+export function useVerifications(notebookId: string, enabled = true) {
   return useQuery({
     queryKey: collabKeys.verifications(notebookId),
     queryFn: ({ signal }) => listVerifications(notebookId, signal),
+    enabled,
   });
 }

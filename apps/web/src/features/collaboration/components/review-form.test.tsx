@@ -11,14 +11,24 @@ const verification = (over: Partial<VerificationSummary>) =>
   ({ id: 'v1', status: 'done', allSame: true, revisionDigest: state.revisionDigest, ...over }) as VerificationSummary;
 
 describe('ReviewForm', () => {
-  it('allows a sign-off only after a clean re-verify of this same revision', async () => {
+  it('offers a sign-off only after a clean re-verify of this same revision; otherwise says what to do first', async () => {
     mockFetch({});
-    const { unmount } = renderWithApp(<ReviewForm notebookId="n1" state={state} verification={verification({ allSame: false })} onChanged={vi.fn()} />);
-    expect((await screen.findByRole('button', { name: 'Sign off' }) as HTMLButtonElement).disabled).toBe(true);
+    const onReverify = vi.fn();
+    const props = { notebookId: 'n1', state, onChanged: vi.fn(), onReverify, reverifying: false };
+    const { unmount } = renderWithApp(<ReviewForm {...props} verification={verification({ allSame: false })} />);
+    await screen.findByText(/did not reproduce every cell/);
+    expect(screen.queryByRole('button', { name: 'Sign off' })).toBeNull();
     unmount();
-    renderWithApp(<ReviewForm notebookId="n1" state={state} verification={verification({ revisionDigest: 'e'.repeat(64) })} onChanged={vi.fn()} />);
-    expect((await screen.findByRole('button', { name: 'Sign off' }) as HTMLButtonElement).disabled).toBe(true);
+    // A re-verify of another revision (or none of the reviewer's own) leaves the re-verify to do.
+    const second = renderWithApp(<ReviewForm {...props} verification={verification({ revisionDigest: 'e'.repeat(64) })} />);
+    await userEvent.click(await screen.findByRole('button', { name: 'Re-verify this revision yourself' }));
+    expect(onReverify).toHaveBeenCalledTimes(1);
+    expect(screen.queryByRole('button', { name: 'Sign off' })).toBeNull();
     expect(screen.getByRole('button', { name: 'Ask for changes' }).hasAttribute('disabled')).toBe(false);
+    second.unmount();
+    renderWithApp(<ReviewForm {...props} verification={null} />);
+    await screen.findByRole('button', { name: 'Re-verify this revision yourself' });
+    expect(screen.queryByRole('button', { name: 'Sign off' })).toBeNull();
   });
 
   it('asks for a comment, then binds the sign-off to the digest and the re-verify', async () => {
@@ -27,7 +37,7 @@ describe('ReviewForm', () => {
       'POST /api/notebooks/n1/reviews': { status: 201, body: { id: 'r1', decision: 'signoff' } },
     });
     const onChanged = vi.fn();
-    renderWithApp(<ReviewForm notebookId="n1" state={state} verification={verification({})} onChanged={onChanged} />);
+    renderWithApp(<ReviewForm notebookId="n1" state={state} verification={verification({})} onChanged={onChanged} onReverify={vi.fn()} reverifying={false} />);
     await userEvent.click(await screen.findByRole('button', { name: 'Sign off' }));
     expect(screen.getByText(/Say what you checked/)).toBeTruthy();
     expect(calls.some((c) => c.method === 'POST')).toBe(false);

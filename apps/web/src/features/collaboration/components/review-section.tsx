@@ -1,4 +1,4 @@
-import type { NotebookView, SiteRole } from '@cribra/contracts';
+import type { NotebookView, SiteRole, VerificationSummary } from '@cribra/contracts';
 import { Alert, Box, Button, Chip, List, ListItem, ListItemText, Stack, Typography } from '@mui/material';
 import { useState } from 'react';
 import { LoadingState } from '../../../components/loading-state';
@@ -6,6 +6,7 @@ import { errorMessage } from '../../../lib/api-error';
 import { formatDateTime } from '../../../lib/format';
 import { useReviewState } from '../api/get-review-state';
 import { useVerification } from '../api/get-verification';
+import { useVerifications } from '../api/list-verifications';
 import { useRequestReview } from '../api/request-review';
 import { useStartVerification } from '../api/start-verification';
 import { canCheckLock } from '../lib/who-may';
@@ -29,6 +30,8 @@ export function ReviewSection({ notebook, userId, siteRole, onChanged }: Props) 
   const shownId = verificationId ?? state.data?.latestVerification?.id ?? null;
   const verification = useVerification(shownId, notebook.id);
   const [locking, setLocking] = useState(false);
+  const isReviewer = notebook.myRole === 'reviewer';
+  const all = useVerifications(notebook.id, isReviewer);
 
   if (notebook.status === 'locked') return <LockRecordView notebookId={notebook.id} canCheck={canCheckLock({ myRole: notebook.myRole, siteRole })} />;
   if (state.isPending) return <LoadingState label="Loading the review…" />;
@@ -38,6 +41,14 @@ export function ReviewSection({ notebook, userId, siteRole, onChanged }: Props) 
   const isOwner = role === 'owner';
   const canVerify = role === 'owner' || role === 'editor' || role === 'reviewer' || siteRole === 'admin';
   const error = request.error ?? reverify.error;
+  const startReverify = () => reverify.mutate(undefined, { onSuccess: (v) => setVerificationId(v.id) });
+  // A sign-off rests on a re-verify the reviewer ran on this revision (the API checks the same).
+  const isMineNow = (v: VerificationSummary | null | undefined): v is VerificationSummary =>
+    !!v && v.requestedBy.id === userId && v.purpose === 'review' && v.revisionDigest === s.revisionDigest;
+  const myVerification = [verification.data, ...(all.data ?? [])].find(isMineNow) ?? null;
+  const showForm = role === 'reviewer' && s.status === 'in_review' && !s.validSignoffs.some((r) => r.reviewer.id === userId);
+  // The review form then offers "Re-verify this revision yourself" itself: one button, not two.
+  const formOffersReverify = showForm && myVerification === null;
 
   return (
     <Stack spacing={2}>
@@ -61,8 +72,8 @@ export function ReviewSection({ notebook, userId, siteRole, onChanged }: Props) 
         {isOwner && s.status === 'draft' && (
           <Button variant="contained" onClick={() => request.mutate({})} disabled={request.isPending}>Ask for review</Button>
         )}
-        {canVerify && (
-          <Button variant="outlined" onClick={() => reverify.mutate(undefined, { onSuccess: (v) => setVerificationId(v.id) })}
+        {canVerify && !formOffersReverify && (
+          <Button variant="outlined" onClick={startReverify}
             disabled={reverify.isPending || verification.data?.status === 'running'}>
             Re-verify
           </Button>
@@ -90,8 +101,9 @@ export function ReviewSection({ notebook, userId, siteRole, onChanged }: Props) 
       {role === 'reviewer' && s.status === 'in_review' && s.validSignoffs.some((r) => r.reviewer.id === userId) && (
         <Alert severity="success" role="status">You signed off this revision.</Alert>
       )}
-      {role === 'reviewer' && s.status === 'in_review' && !s.validSignoffs.some((r) => r.reviewer.id === userId) && (
-        <ReviewForm notebookId={notebook.id} state={s} verification={verification.data ?? s.latestVerification} onChanged={onChanged} />
+      {showForm && (
+        <ReviewForm notebookId={notebook.id} state={s} verification={myVerification} onChanged={onChanged}
+          onReverify={startReverify} reverifying={reverify.isPending || verification.data?.status === 'running'} />
       )}
       {locking && <LockDialog notebookId={notebook.id} cellCount={notebook.cells.length} state={s} onClose={() => setLocking(false)} onChanged={onChanged} />}
     </Stack>

@@ -9,5 +9,9 @@ export function requestLedger(body: LedgerComputationBody): Promise<ComputationV
 
 export function useRequestLedger() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: requestLedger, onSuccess: () => qc.invalidateQueries({ queryKey: ledgerKey }) });
+  return useMutation({
+    mutationFn: requestLedger,
+    // The new computation joins the followed list (which then polls while it runs).
+    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: ledgerKey }), qc.invalidateQueries({ queryKey: ['computations'] })]),
+  });
 }

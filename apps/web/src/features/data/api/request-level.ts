@@ -9,5 +9,8 @@ export function requestLevel(prime: number): Promise<ComputationView> {
 
 export function useRequestLevel() {
   const qc = useQueryClient();
-  return useMutation({ mutationFn: requestLevel, onSuccess: () => qc.invalidateQueries({ queryKey: levelsKey }) });
+  return useMutation({
+    mutationFn: requestLevel,
+    onSuccess: () => Promise.all([qc.invalidateQueries({ queryKey: levelsKey }), qc.invalidateQueries({ queryKey: ['computations'] })]),
+  });
 }

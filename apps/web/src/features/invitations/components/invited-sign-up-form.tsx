@@ -29,7 +29,7 @@ export function InvitedSignUpForm({ token, preview, onJoined }: Props) {
   return (
     <Stack component="form" noValidate spacing={2} onSubmit={submit} aria-label="Create your account">
       {signUp.isError && <Alert severity="error">{errorMessage(signUp.error)}</Alert>}
-      <TextField label="E-mail" value={preview.email} disabled helperText="The invited address." />
+      <TextField label="E-mail" value={preview.email} helperText="The invited address." slotProps={{ htmlInput: { readOnly: true } }} />
       <TextField label="Display name" value={displayName} onChange={(e) => setDisplayName(e.target.value)} autoFocus
         error={!!problems.displayName} helperText={problems.displayName} />
       <TextField label="Password" type="password" autoComplete="new-password" value={password} onChange={(e) => setPassword(e.target.value)}

@@ -22,7 +22,8 @@ describe('InvitationPage', () => {
     mockFetch({ 'GET /api/invitations/token/tok1': { body: preview }, 'GET /api/auth/me': signedOut });
     renderRoutes(routes, '/invitations/tok1');
     const link = await screen.findByRole('link', { name: 'Sign in as noor@example.org to accept' });
-    expect(link.getAttribute('href')).toBe('/sign-in?next=%2Finvitations%2Ftok1');
+    // The sign-in page fills in the invited address from `email`.
+    expect(link.getAttribute('href')).toBe('/sign-in?next=%2Finvitations%2Ftok1&email=noor%40example.org');
     expect(screen.getByText(/Sixes in the wheel/)).toBeTruthy();
   });
 

@@ -49,7 +49,7 @@ export default function InvitationPage() {
           <Alert severity="warning">You are signed in as {me.data!.email}. Sign out and sign in as {p.email} to accept.</Alert>
         )}
         {!me.data && p.accountExists && (
-          <Button variant="contained" size="medium" component={RouterLink} to={`/sign-in?next=${encodeURIComponent(here)}`}>
+          <Button variant="contained" size="medium" component={RouterLink} to={`/sign-in?next=${encodeURIComponent(here)}&email=${encodeURIComponent(p.email)}`}>
             Sign in as {p.email} to accept
           </Button>
         )}

@@ -8,13 +8,13 @@ import { monoFont } from '../../../lib/design-tokens';
 import { useCancelRun } from '../api/cancel-run';
 import { useRunCell } from '../api/run-cell';
 import { useCellDraft } from '../hooks/use-cell-draft';
+import { CellConflict } from './cell-conflict';
 import { CellStatusLine } from './cell-status-line';
 import { CellTitle } from './cell-title';
 import { CellToolbar } from './cell-toolbar';
 import { RunHistory } from './run-history';
 import { RunOutputs } from './run-outputs';
 import { RunProgress } from './run-progress';
-import { StaleCellDialog } from './stale-cell-dialog';
 
 const KIND_LABEL: Record<CellKind, string> = { query: 'QUERY', claim: 'CLAIM', note: 'NOTE' };
 
@@ -27,10 +27,13 @@ interface Props {
   onMove: (cell: CellView, by: -1 | 1) => void;
   onDelete: (cell: CellView) => void;
   onAddBelow: (cell: CellView) => void;
+  /** Names of the others whose editor has the focus in this cell now (presence). */
+  othersEditing?: string[];
+  onEditingChange?: (cellId: string | null) => void;
 }
 
 /** One cell as a card of the lab record: kind, source, latest outputs, status line. */
-export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete, onAddBelow }: Props) {
+export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete, onAddBelow, othersEditing = [], onEditingChange }: Props) {
   const d = useCellDraft(cell);
   const runCell = useRunCell();
   const cancel = useCancelRun();
@@ -54,6 +57,10 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
         <Chip size="small" label={KIND_LABEL[cell.kind]} variant={cell.kind === 'claim' ? 'filled' : 'outlined'}
           sx={{ fontWeight: 600, letterSpacing: '0.08em', borderRadius: 1 }} />
         <CellTitle key={`${cell.id}-${cell.title ?? ''}`} cell={cell} index={index} canEdit={canEdit} />
+        {othersEditing.length > 0 && (
+          <Chip size="small" color="warning" variant="outlined" data-testid="cell-presence"
+            label={`${othersEditing.join(', ')} ${othersEditing.length === 1 ? 'is' : 'are'} editing`} />
+        )}
         <Box sx={{ flex: 1 }} />
         {cell.kind === 'note' && canEdit && (
           <Button onClick={() => (editingNote ? void d.save().then((s) => s && setEditingNote(false)) : setEditingNote(true))}>
@@ -77,11 +84,22 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
           onRun={(text) => void doRun(text)}
           onSave={(text) => void d.save(text)}
           onAddBelow={() => onAddBelow(cell)}
+          onFocusChange={(focused) => onEditingChange?.(focused ? cell.id : null)}
           readOnly={!canEdit}
           label={`Source of cell ${index + 1} (${cell.kind})`}
           path={`cell-${cell.id}.${cell.kind === 'note' ? 'md' : 'sift'}`}
           language={cell.kind === 'note' ? 'markdown' : undefined}
         />
+      )}
+      {d.conflict && (
+        <CellConflict mine={d.draft} theirs={d.conflict} baseRevision={d.baseRevision} saving={d.saving}
+          language={cell.kind === 'note' ? 'markdown' : undefined}
+          onKeepMine={() => void d.keepMine()} onTakeTheirs={d.takeTheirs} onSaveMerge={(t) => void d.saveMerge(t)} />
+      )}
+      {d.behind && !d.conflict && (
+        <Alert severity="info" sx={{ mt: 1 }}>
+          {cell.author.displayName} saved revision {cell.revision} while you were editing; saving will show both texts to merge.
+        </Alert>
       )}
       {actionError && <Alert severity="error" sx={{ mt: 1 }}>{errorMessage(actionError)}</Alert>}
       {run && active && <RunProgress run={run} />}
@@ -90,9 +108,6 @@ export function CellCard({ cell, index, count, canEdit, canRun, onMove, onDelete
       <Collapse in={historyOpen} unmountOnExit>
         <Box sx={{ mt: 1 }}><RunHistory cellId={cell.id} /></Box>
       </Collapse>
-      {d.conflict && (
-        <StaleCellDialog mine={d.draft} theirs={d.conflict} onKeepMine={() => void d.keepMine()} onTakeTheirs={d.takeTheirs} onClose={d.dismissConflict} />
-      )}
     </Paper>
   );
 }

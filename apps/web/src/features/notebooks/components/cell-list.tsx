@@ -17,9 +17,12 @@ interface Props {
   notebook: NotebookView;
   canEdit: boolean;
   canRun: boolean;
+  /** Cell id → names of the others editing it now (presence). */
+  editingBy?: Map<string, string[]>;
+  onEditingChange?: (cellId: string | null) => void;
 }
 
-export function CellList({ notebook, canEdit, canRun }: Props) {
+export function CellList({ notebook, canEdit, canRun, editingBy, onEditingChange }: Props) {
   const create = useCreateCell(notebook.id);
   const remove = useDeleteCell(notebook.id);
   const reorder = useReorderCells(notebook.id);
@@ -58,6 +61,8 @@ export function CellList({ notebook, canEdit, canRun }: Props) {
           onMove={move}
           onDelete={setDeleting}
           onAddBelow={(c) => canEdit && add('query', c.position + 1)}
+          othersEditing={editingBy?.get(cell.id)}
+          onEditingChange={onEditingChange}
         />
       ))}
       {canEdit && <AddCellBar onAdd={(k) => add(k)} disabled={create.isPending} />}

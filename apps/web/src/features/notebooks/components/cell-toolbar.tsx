@@ -27,7 +27,7 @@ export function CellToolbar(p: Props) {
     <Box sx={{ display: 'flex', alignItems: 'center', gap: 0.5 }}>
       {p.canEdit && p.dirty && <Button onClick={p.onSave} disabled={p.saving}>{p.saving ? 'Saving…' : 'Save'}</Button>}
       {p.runnable && p.canRun && !p.active && (
-        <Tooltip title="Ctrl+Enter in the editor"><Button variant="contained" onClick={p.onRun}>Run</Button></Tooltip>
+        <Tooltip title="Ctrl+Enter in the editor" describeChild><Button variant="contained" onClick={p.onRun}>Run</Button></Tooltip>
       )}
       {p.runnable && p.canRun && p.active && <Button color="error" variant="outlined" onClick={p.onCancel}>Cancel run</Button>}
       {p.runnable && (

@@ -12,9 +12,11 @@ interface Props {
   /** Opens the notebook settings; the button is shown only when given (the page passes it to those who may edit). */
   onEditSettings?: () => void;
   actions?: ReactNode;
+  /** Cells are editable here: the keyboard hint is shown (it is hidden on a read-only notebook). */
+  canEdit: boolean;
 }
 
-export function NotebookHeader({ notebook: nb, canRun, runningAll, onRunAll, onEditSettings, actions }: Props) {
+export function NotebookHeader({ notebook: nb, canRun, runningAll, onRunAll, onEditSettings, actions, canEdit }: Props) {
   return (
     <Box component="header" sx={{ mb: 2 }}>
       <Box sx={{ display: 'flex', alignItems: 'center', gap: 1.5, flexWrap: 'wrap' }}>
@@ -36,10 +38,12 @@ export function NotebookHeader({ notebook: nb, canRun, runningAll, onRunAll, onE
         rev {nb.revision} · owner {nb.owner.displayName} · my role {nb.myRole ?? 'none (admin)'} · {nb.requiredSignoffs} sign-off{nb.requiredSignoffs === 1 ? '' : 's'} required · updated {formatDateTime(nb.updatedAt)}
         {nb.tags.length > 0 && ` · ${nb.tags.join(', ')}`}
       </Typography>
-      <Typography variant="caption" color="text.secondary" component="p">
-        In a cell: <kbd>Ctrl</kbd>+<kbd>Enter</kbd> runs it · <kbd>Ctrl</kbd>+<kbd>S</kbd> saves · <kbd>Ctrl</kbd>+<kbd>Alt</kbd>+<kbd>N</kbd> adds a query below ·
-        {' '}<kbd>Ctrl</kbd>+<kbd>M</kbd> lets <kbd>Tab</kbd> leave the editor
-      </Typography>
+      {canEdit && (
+        <Typography variant="caption" color="text.secondary" component="p" data-testid="shortcut-hint">
+          In the cell being edited: {canRun && <><kbd>Ctrl</kbd>+<kbd>Enter</kbd> saves and runs it · </>}<kbd>Ctrl</kbd>+<kbd>S</kbd> saves it ·
+          {' '}<kbd>Ctrl</kbd>+<kbd>Alt</kbd>+<kbd>N</kbd> adds a query below it · <kbd>Ctrl</kbd>+<kbd>M</kbd> lets <kbd>Tab</kbd> leave the editor
+        </Typography>
+      )}
     </Box>
   );
 }

@@ -94,4 +94,45 @@ describe('useCellDraft', () => {
     expect(result.current.conflict).toBeNull();
     expect(result.current.replaceKey).toBe(key + 1);
   });
+
+  it('keeps its own base revision when a remote save arrives while the text is unsaved (no lost update)', async () => {
+    const theirs = cell(4, 'show 1 + 3', 'Teodor');
+    const { calls } = mockFetch({
+      'GET /api/auth/csrf': { body: { token: 't' } },
+      'PUT /api/cells/c1': (req) =>
+        (req.body as { revision: number }).revision === 3
+          ? apiError(409, 'Conflict', 'stale', { reason: 'stale_revision', current: theirs })
+          : { body: cell(5, (req.body as { source: string }).source) },
+    });
+    const { result, rerender } = renderHook(({ c }) => useCellDraft(c), { wrapper, initialProps: { c: cell(3, 'show 1') } });
+    act(() => result.current.setDraft('show 1 + 2'));
+    rerender({ c: theirs });
+    expect(result.current.draft).toBe('show 1 + 2');
+    expect(result.current.behind).toBe(true);
+    expect(result.current.baseRevision).toBe(3);
+    await act(() => result.current.save());
+    expect(calls.filter((c) => c.method === 'PUT').map((c) => c.body)).toEqual([{ revision: 3, source: 'show 1 + 2' }]);
+    expect(result.current.conflict?.source).toBe('show 1 + 3');
+    await act(() => result.current.saveMerge('show 1 + 2 + 3'));
+    expect(calls.filter((c) => c.method === 'PUT').map((c) => c.body)[1]).toEqual({ revision: 4, source: 'show 1 + 2 + 3' });
+    expect(result.current.conflict).toBeNull();
+    expect(result.current.draft).toBe('show 1 + 2 + 3');
+    expect(result.current.dirty).toBe(false);
+  });
+
+  it('follows a remote save while nothing is unsaved, and then saves against the new revision', async () => {
+    const { calls } = mockFetch({
+      'GET /api/auth/csrf': { body: { token: 't' } },
+      'PUT /api/cells/c1': (req) => ({ body: cell(5, (req.body as { source: string }).source) }),
+    });
+    const { result, rerender } = renderHook(({ c }) => useCellDraft(c), { wrapper, initialProps: { c: cell(3, 'show 1') } });
+    const key = result.current.replaceKey;
+    rerender({ c: cell(4, 'show 7', 'Teodor') });
+    expect(result.current.draft).toBe('show 7');
+    expect(result.current.replaceKey).toBe(key + 1);
+    expect(result.current.dirty).toBe(false);
+    act(() => result.current.setDraft('show 8'));
+    await act(() => result.current.save());
+    expect(calls.find((c) => c.method === 'PUT')?.body).toEqual({ revision: 4, source: 'show 8' });
+  });
 });

@@ -4,43 +4,71 @@ import { useEffect, useRef, useState } from 'react';
 import { putCachedCell } from '../api/notebook-cache';
 import { staleCell, useUpdateCell } from '../api/update-cell';
 
+/** The saved cell a draft started from: its revision is the one the next save is sent against. */
+interface Base {
+  revision: number;
+  source: string;
+}
+
 /**
- * The text being edited in one cell, saved with the revision it started from. A stale save (409)
- * is kept as a conflict until the author keeps their version or takes the saved one.
+ * The text being edited in one cell. The draft keeps the revision it started from (not the one
+ * the cache holds now: a remote save moves the cache, and saving against it would silently drop
+ * the other edit). A save that meets a newer revision becomes a conflict, kept until the author
+ * keeps theirs, takes the saved one, or saves a merge of the two.
  */
 export function useCellDraft(cell: CellView) {
   const qc = useQueryClient();
-  const [draft, setDraft] = useState(cell.source);
+  const [base, setBaseState] = useState<Base>({ revision: cell.revision, source: cell.source });
+  const [draft, setDraftState] = useState(cell.source);
   const [conflict, setConflict] = useState<CellView | null>(null);
   // Bumped whenever the text is replaced from outside the editor (saved version taken, remote change).
   const [replaceKey, setReplaceKey] = useState(0);
   const update = useUpdateCell();
-  const dirty = draft !== cell.source;
-  const lastServerSource = useRef(cell.source);
+  // Refs mirror the state so that async saves and the remote-change effect see the latest values.
+  const baseRef = useRef(base);
   const draftRef = useRef(draft);
-  draftRef.current = draft;
+  const setBase = (b: Base) => {
+    baseRef.current = b;
+    setBaseState(b);
+  };
+  const setDraft = (text: string) => {
+    draftRef.current = text;
+    setDraftState(text);
+  };
+  const replaceText = (text: string) => {
+    setDraft(text);
+    setReplaceKey((k) => k + 1);
+  };
+  const dirty = draft !== base.source;
 
-  // Someone else's saved change replaces the text only while there is nothing unsaved here.
+  // A remote change is taken over only while nothing is unsaved here; otherwise the draft stays on
+  // its own base revision and the next save shows both texts.
   useEffect(() => {
-    if (cell.source !== lastServerSource.current) {
-      if (draftRef.current === lastServerSource.current) {
-        setDraft(cell.source);
-        setReplaceKey((k) => k + 1);
-      }
-      lastServerSource.current = cell.source;
+    const b = baseRef.current;
+    if (cell.revision <= b.revision) return;
+    const clean = draftRef.current === b.source;
+    if (clean) {
+      setBase({ revision: cell.revision, source: cell.source });
+      if (cell.source !== draftRef.current) replaceText(cell.source);
+    } else if (cell.source === b.source || cell.source === draftRef.current) {
+      // Only the kind changed, or the other save holds this very text: nothing to merge.
+      setBase({ revision: cell.revision, source: cell.source === draftRef.current ? cell.source : b.source });
     }
-  }, [cell.source]);
+    // eslint-disable-next-line react-hooks/exhaustive-deps -- follows the server's cell only
+  }, [cell.revision, cell.source]);
 
-  const saveAt = async (revision: number, source: string): Promise<CellView | null> => {
+  const saveAt = async (revision: number, source: string, quietRetry = true): Promise<CellView | null> => {
     try {
       const saved = await update.mutateAsync({ id: cell.id, body: { revision, source } });
-      lastServerSource.current = saved.source;
+      setBase({ revision: saved.revision, source: saved.source });
       setConflict(null);
       return saved;
     } catch (err) {
       const current = staleCell(err);
-      if (current) setConflict(current);
-      else throw err;
+      if (!current) throw err;
+      // The revision moved but the text did not (a kind change): nothing to decide, save on top.
+      if (quietRetry && current.source === baseRef.current.source) return saveAt(current.revision, source, false);
+      setConflict(current);
       return null;
     }
   };
@@ -50,26 +78,38 @@ export function useCellDraft(cell: CellView) {
     setDraft,
     replaceKey,
     dirty,
+    /** The revision the draft started from (what the next save is sent against). */
+    baseRevision: base.revision,
+    /** True when the cell has a newer saved revision with other text than the one this draft started from. */
+    behind: dirty && cell.revision > base.revision && cell.source !== base.source,
     saving: update.isPending,
     saveError: update.error && !staleCell(update.error) ? update.error : null,
     conflict,
     /**
-     * Saves unsaved text (`text` when given: the editor's own, which may be ahead of the draft state);
-     * resolves to the saved cell, or null when a conflict stopped it.
+     * Saves unsaved text (`text` when given: the editor's own, which may be ahead of the draft state)
+     * against the draft's base revision; resolves to the saved cell, or null when a conflict stopped it.
      */
-    save: (text: string = draft): Promise<CellView | null> => {
-      if (text !== draft) setDraft(text);
-      return text !== cell.source ? saveAt(cell.revision, text) : Promise.resolve(cell);
+    save: (text: string = draftRef.current): Promise<CellView | null> => {
+      if (text !== draftRef.current) setDraft(text);
+      if (conflict) return Promise.resolve(null);
+      const b = baseRef.current;
+      return text !== b.source ? saveAt(b.revision, text) : Promise.resolve({ ...cell, revision: b.revision, source: b.source });
     },
-    keepMine: () => (conflict ? saveAt(conflict.revision, draft) : Promise.resolve(null)),
+    /** Saves this draft over the newer revision. */
+    keepMine: () => (conflict ? saveAt(conflict.revision, draftRef.current, false) : Promise.resolve(null)),
+    /** Saves `text` (a merge of both versions) over the newer revision and shows it in the editor. */
+    saveMerge: async (text: string) => {
+      if (!conflict) return null;
+      const saved = await saveAt(conflict.revision, text, false);
+      if (saved) replaceText(saved.source);
+      return saved;
+    },
     takeTheirs: () => {
       if (!conflict) return;
       putCachedCell(qc, conflict);
-      lastServerSource.current = conflict.source;
-      setDraft(conflict.source);
-      setReplaceKey((k) => k + 1);
+      setBase({ revision: conflict.revision, source: conflict.source });
+      replaceText(conflict.source);
       setConflict(null);
     },
-    dismissConflict: () => setConflict(null),
   };
 }
