@@ -10,7 +10,7 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
-import { DataSource } from 'typeorm';
+import { Client as PgClient } from 'pg';
 import { canonicalJson } from '@cribra/lang';
 import { CSRF_HEADER, type LockRecord, type NotebookView } from '@cribra/contracts';
 import { deleteNotebooks, expectStatus, memberWithRole, runAll, verifyAndSignOff, waitVerification } from './helpers/review-fixtures';
@@ -174,10 +174,17 @@ describe('records locked before v1', () => {
         runId: c.runId, engineVersion: c.engineVersion, languageVersion: c.languageVersion,
       })),
     };
-    await app.get(DataSource).transaction(async (m) => {
-      await m.query(`SET LOCAL cribra.allow_locked_changes = 'on'`);
-      await m.query(`UPDATE notebook_locks SET record = $2 WHERE notebook_id = $1`, [nb.id, JSON.stringify(old)]);
-    });
+    // As the tables' owner: the maintenance escape of the lock trigger is refused to the app's own role.
+    const pg = new PgClient({ connectionString: process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL });
+    await pg.connect();
+    try {
+      await pg.query('BEGIN');
+      await pg.query(`SET LOCAL cribra.allow_locked_changes = 'on'`);
+      await pg.query(`UPDATE notebook_locks SET record = $2 WHERE notebook_id = $1`, [nb.id, JSON.stringify(old)]);
+      await pg.query('COMMIT');
+    } finally {
+      await pg.end();
+    }
     const read: LockRecord = (await owner.call('get', `/api/notebooks/${nb.id}/lock`)).body;
     expectValid(read);
     expect(read.recordVersion).toBe('cribra-record-v0');

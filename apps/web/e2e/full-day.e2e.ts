@@ -44,7 +44,7 @@ describe('a whole day in Cribra', () => {
     await signInThroughUi(owner, user);
     await owner.getByRole('heading', { name: 'Notebooks' }).waitFor();
     await saveScreenshot(owner, 'notebooks');
-    await owner.getByRole('button', { name: 'New notebook' }).click();
+    await owner.getByRole('button', { name: 'New notebook', exact: true }).click();
     await owner.getByLabel('Title', { exact: true }).fill(title);
     await owner.getByLabel('Summary', { exact: true }).fill('Is {0, 2, 6, 8, 12} admissible, and how many gaps 6 does each wheel level hold?');
     await owner.getByLabel('Tags', { exact: true }).fill('quintuplets, wheel');
