@@ -1,9 +1,8 @@
 import { availableParallelism } from 'node:os';
-import { join, resolve } from 'node:path';
-import { Worker } from 'node:worker_threads';
-import { EngineError, inputError, type EngineErrorKind } from '../errors';
+import { inputError } from '../errors';
+import { nodeWorkerFile, runChunksOnWorkers } from './chunk-workers';
 import { combineWheelChunks, planWheelChunks, type WheelChunkSpec, type WheelChunkTally } from '../wheel/chunk';
-import { MAX_MEMORY_LEVEL, wheelGaps } from '../wheel/level-gaps';
+import { MAX_MEMORY_LEVEL } from '../wheel/level-gaps';
 import { gapHistogram, levelQuadTally, levelStatsFromTally, wheelLevelStats, type WheelLevelStats } from '../wheel/level';
 import { nextPairTally } from '../wheel/pair-recursion';
 import { checkLevel, previousPrime } from '../wheel/primorial';
@@ -20,12 +19,6 @@ export interface WheelPoolOptions {
   readonly onProgress?: (done: number, total: number) => void;
 }
 
-// Workers run compiled JavaScript: from dist next to this file, or from the built dist when this
-// module is loaded from TypeScript source (vitest); the libs test setup builds dist first.
-function workerFile(): string {
-  return __filename.endsWith('.ts') ? resolve(__dirname, '../../dist/node/wheel-worker.js') : join(__dirname, 'wheel-worker.js');
-}
-
 /**
  * Runs chunk specs (all over the same base level) on worker threads sharing the base gap cycle,
  * and combines the partial tallies. Any worker error rejects with an EngineError naming the chunk.
@@ -35,42 +28,10 @@ export async function runWheelChunksParallel(specs: readonly WheelChunkSpec[], o
   if (specs.length === 0) throw inputError('no chunks to run');
   const base = specs[0]!.base;
   if (specs.some((s) => s.base !== base)) throw inputError('all chunks of one run must share the base level');
-  const gaps = wheelGaps(base);
-  const shared = new SharedArrayBuffer(gaps.length);
-  new Uint8Array(shared).set(gaps);
-  const n = Math.max(1, Math.min(options.workers ?? availableParallelism(), specs.length));
-  const workers = Array.from({ length: n }, () => new Worker(workerFile(), { workerData: { base, gaps: shared } }));
-  const parts: WheelChunkTally[] = [];
-  let next = 0;
-  let done = 0;
-  try {
-    await Promise.all(
-      workers.map(
-        (w) =>
-          new Promise<void>((resolveAll, reject) => {
-            const send = () => {
-              if (next >= specs.length) return resolveAll();
-              const id = next++;
-              w.postMessage({ id, spec: specs[id] });
-            };
-            w.on('message', (msg: { id: number; tally?: WheelChunkTally; error?: { message: string; kind: EngineErrorKind | null } }) => {
-              if (msg.error) {
-                const s = specs[msg.id]!;
-                const text = `chunk ${s.target}# copies [${s.copyFrom}, ${s.copyTo}): ${msg.error.message}`;
-                return reject(new EngineError(msg.error.kind ?? 'limit', text));
-              }
-              parts.push(msg.tally!);
-              options.onProgress?.(++done, specs.length);
-              send();
-            });
-            w.on('error', reject);
-            send();
-          }),
-      ),
-    );
-  } finally {
-    await Promise.all(workers.map((w) => w.terminate()));
-  }
+  const parts = await runChunksOnWorkers<WheelChunkSpec, WheelChunkTally>({
+    file: nodeWorkerFile('wheel-worker.js'), base, specs, workers: options.workers ?? availableParallelism(), key: 'tally',
+    describe: (s) => `chunk ${s.target}# copies [${s.copyFrom}, ${s.copyTo})`, onProgress: options.onProgress,
+  });
   return combineWheelChunks(parts);
 }
 
