@@ -45,6 +45,9 @@ describe('LaTeX export compiled with pdflatex', () => {
     expect(tex).toMatch(/\\begin\{longtable\}\{@\{\}rrrrr@\{\}\}/);
     // Once per claim (two claims): Sift's own summary says it too and is not repeated beside it.
     expect(tex.match(/computed evidence/gi)).toHaveLength(2);
+    // The chart of gaps 2, 4, 6 by level as a pgfplots figure with a log y axis and its three series.
+    expect(tex).toMatch(/\\begin\{axis\}\[[^\]]*ymode=log/);
+    for (const series of ['twos', 'fours', 'sixes']) expect(tex).toContain(`\\addlegendentry{${series}}`);
     const pdf = compileLatex(tex);
     expect(pdf.errors).toEqual([]);
     const text = flat(pdf.text);

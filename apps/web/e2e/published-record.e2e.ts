@@ -1,8 +1,10 @@
+import { spawnSync } from 'node:child_process';
+import { join } from 'node:path';
 import type { Browser, BrowserContext, Page } from 'playwright-core';
 import { afterAll, beforeAll, describe, expect, it } from 'vitest';
 import { launchBrowser } from './support/browser';
 import { demoUser } from './support/demo-users';
-import { baseUrl } from './support/env';
+import { baseUrl, repoRoot } from './support/env';
 import { guardLoopback, type LoopbackGuard } from './support/loopback-guard';
 import { saveScreenshot } from './support/screenshots';
 import { signInThroughUi } from './support/sign-in-ui';
@@ -10,6 +12,7 @@ import { signInThroughUi } from './support/sign-in-ui';
 // The demo's locked notebook (seeds-demo/notebooks.json): its owner publishes the record, a reader
 // who is not signed in opens /records/<id>, then the owner withdraws it and the reader sees the banner.
 const TITLE = 'Gap patterns across wheel levels';
+const CLI = join(repoRoot, 'apps', 'cli', 'dist', 'main.js');
 
 describe('a published record', () => {
   let browser: Browser;
@@ -65,6 +68,13 @@ describe('a published record', () => {
     const json = await reader.request.get(`${baseUrl()}/api${recordPath}/export?format=json`);
     expect(json.status()).toBe(200);
     expect((await json.json()).title).toBe(TITLE);
+    // The reader checks the record offline with the command the page shows: every cell the same.
+    const verify = spawnSync(process.execPath, [CLI, 'verify', `${baseUrl()}/api${recordPath}/export?format=json`, '--json', '--workers', '1'], { encoding: 'utf8', timeout: 300_000 });
+    expect(verify.status, verify.stderr).toBe(0);
+    const report = JSON.parse(verify.stdout) as { hashOk: boolean; counts: { same: number; differs: number; failed: number } };
+    expect(report.hashOk).toBe(true);
+    expect(report.counts).toMatchObject({ differs: 0, failed: 0 });
+    expect(report.counts.same).toBeGreaterThanOrEqual(4); // two tables, the chart and two claims of the demo notebook
     await saveScreenshot(reader, 'published-record');
   });
 
