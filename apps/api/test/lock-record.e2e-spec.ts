@@ -10,11 +10,11 @@ import { mkdtempSync, readFileSync, writeFileSync } from 'node:fs';
 import { tmpdir } from 'node:os';
 import { join } from 'node:path';
 import request from 'supertest';
-import { Client as PgClient } from 'pg';
 import { canonicalJson } from '@cribra/lang';
 import { CSRF_HEADER, type LockRecord, type NotebookView } from '@cribra/contracts';
 import { deleteNotebooks, expectStatus, memberWithRole, runAll, verifyAndSignOff, waitVerification } from './helpers/review-fixtures';
 import { Client, createTestApp, newMember } from './helpers/test-app';
+import { asOwner } from './helpers/sql-as';
 
 const ROOT = join(__dirname, '../../..');
 const CLI = join(ROOT, 'apps/cli/dist/main.js');
@@ -175,16 +175,7 @@ describe('records locked before v1', () => {
       })),
     };
     // As the tables' owner: the maintenance escape of the lock trigger is refused to the app's own role.
-    const pg = new PgClient({ connectionString: process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL });
-    await pg.connect();
-    try {
-      await pg.query('BEGIN');
-      await pg.query(`SET LOCAL cribra.allow_locked_changes = 'on'`);
-      await pg.query(`UPDATE notebook_locks SET record = $2 WHERE notebook_id = $1`, [nb.id, JSON.stringify(old)]);
-      await pg.query('COMMIT');
-    } finally {
-      await pg.end();
-    }
+    await asOwner(`UPDATE notebook_locks SET record = $2 WHERE notebook_id = $1`, [nb.id, JSON.stringify(old)]);
     const read: LockRecord = (await owner.call('get', `/api/notebooks/${nb.id}/lock`)).body;
     expectValid(read);
     expect(read.recordVersion).toBe('cribra-record-v0');

@@ -15,6 +15,7 @@ import {
   waitVerification,
 } from './helpers/review-fixtures';
 import { Client, createTestApp, newAdmin, newMember } from './helpers/test-app';
+import { asOwner, sqlFails, sqlStateAsApp } from './helpers/sql-as';
 
 let app: INestApplication;
 let db: DataSource;
@@ -44,20 +45,6 @@ async function signedOff(owner: Client, signoffs = 1, required = 1): Promise<{ n
     reviewers.push(client);
   }
   return { nb: (await owner.call('get', `/api/notebooks/${nb.id}`)).body, reviewers };
-}
-
-/** Runs SQL on a plain connection (as a person with psql would) and returns the SQLSTATE it failed with. */
-async function sqlFails(sql: string, params: unknown[]): Promise<string> {
-  const pg = new PgClient({ connectionString: process.env.DATABASE_URL });
-  await pg.connect();
-  try {
-    await pg.query(sql, params);
-  } catch (e) {
-    return (e as { code?: string }).code ?? 'no code';
-  } finally {
-    await pg.end();
-  }
-  throw new Error(`expected the database to refuse: ${sql}`);
 }
 
 describe('locking', () => {
@@ -259,35 +246,6 @@ describe('a locked notebook', () => {
   });
 });
 
-/** SQL as the app's own role (DATABASE_URL, what the API and runners use); returns the SQLSTATE it failed with. */
-async function asAppFails(statements: Array<[string, unknown[]?]>): Promise<string> {
-  const pg = new PgClient({ connectionString: process.env.DATABASE_URL });
-  await pg.connect();
-  try {
-    for (const [sql, params] of statements) await pg.query(sql, params ?? []);
-  } catch (e) {
-    return (e as { code?: string }).code ?? 'no code';
-  } finally {
-    await pg.end();
-  }
-  throw new Error(`expected the database to refuse: ${statements.map((s) => s[0]).join('; ')}`);
-}
-
-/** Runs SQL as the tables' owner (DATABASE_OWNER_URL, what migrations use). */
-async function asOwner<T = Record<string, unknown>>(sql: string, params: unknown[] = []): Promise<T[]> {
-  const pg = new PgClient({ connectionString: process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL });
-  await pg.connect();
-  try {
-    await pg.query('BEGIN');
-    await pg.query(`SET LOCAL cribra.allow_locked_changes = 'on'`);
-    const { rows } = await pg.query(sql, params);
-    await pg.query('COMMIT');
-    return rows as T[];
-  } finally {
-    await pg.end();
-  }
-}
-
 describe('the database enforces the lock against the app role itself', () => {
   let owner: Client;
   let nb: NotebookView;
@@ -310,7 +268,7 @@ describe('the database enforces the lock against the app role itself', () => {
   });
 
   it('(a) refuses moving a cell of another notebook into the locked one (the new row is checked too)', async () => {
-    expect(await asAppFails([[`UPDATE cells SET notebook_id = $1, position = 77 WHERE id = $2`, [nb.id, other.cells[0].id]]])).toBe('CRLCK');
+    expect(await sqlStateAsApp([[`UPDATE cells SET notebook_id = $1, position = 77 WHERE id = $2`, [nb.id, other.cells[0].id]]])).toBe('CRLCK');
     const [{ notebook_id }] = await db.query(`SELECT notebook_id FROM cells WHERE id = $1`, [other.cells[0].id]);
     expect(notebook_id).toBe(other.id);
   });
@@ -321,9 +279,9 @@ describe('the database enforces the lock against the app role itself', () => {
        SELECT $1, owner_id, 'planted', 'planted.csv', 'table', 'text/csv', 1, repeat('0', 64), 0, '[]', '[]', '' FROM notebooks WHERE id = $1 RETURNING id`,
       [other.id],
     );
-    expect(await asAppFails([[`UPDATE uploads SET notebook_id = $1 WHERE id = $2`, [nb.id, u.id]]])).toBe('CRLCK');
+    expect(await sqlStateAsApp([[`UPDATE uploads SET notebook_id = $1 WHERE id = $2`, [nb.id, u.id]]])).toBe('CRLCK');
     expect(
-      await asAppFails([[
+      await sqlStateAsApp([[
         `INSERT INTO uploads (notebook_id, owner_id, name, original_name, kind, media_type, size_bytes, sha256, row_count, columns, content, raw)
          SELECT $1, owner_id, 'late', 'late.csv', 'table', 'text/csv', 1, repeat('0', 64), 0, '[]', '[]', '' FROM notebooks WHERE id = $1`,
         [nb.id],
@@ -340,18 +298,18 @@ describe('the database enforces the lock against the app role itself', () => {
       [nb.id],
     );
     expect(run).toBeDefined();
-    expect(await asAppFails([[`UPDATE runs SET purpose = 'run', outputs = '[]' WHERE id = $1`, [run.id]]])).toBe('CRLCK');
+    expect(await sqlStateAsApp([[`UPDATE runs SET purpose = 'run', outputs = '[]' WHERE id = $1`, [run.id]]])).toBe('CRLCK');
     const [{ purpose }] = await db.query(`SELECT purpose FROM runs WHERE id = $1`, [run.id]);
     expect(purpose).toBe('reverify');
   });
 
   it('(d) refuses TRUNCATE, session_replication_role = replica and the maintenance setting to the app role', async () => {
-    expect(await asAppFails([[`TRUNCATE cells CASCADE`]])).toMatch(/^(42501|CRLCK)$/);
-    expect(await asAppFails([[`TRUNCATE uploads`]])).toMatch(/^(42501|CRLCK)$/);
-    expect(await asAppFails([[`SET session_replication_role = replica`]])).toBe('42501');
-    expect(await asAppFails([[`ALTER TABLE cells DISABLE TRIGGER cells_guard_locked`]])).toBe('42501');
+    expect(await sqlStateAsApp([[`TRUNCATE cells CASCADE`]])).toMatch(/^(42501|CRLCK)$/);
+    expect(await sqlStateAsApp([[`TRUNCATE uploads`]])).toMatch(/^(42501|CRLCK)$/);
+    expect(await sqlStateAsApp([[`SET session_replication_role = replica`]])).toBe('42501');
+    expect(await sqlStateAsApp([[`ALTER TABLE cells DISABLE TRIGGER cells_guard_locked`]])).toBe('42501');
     expect(
-      await asAppFails([[`BEGIN`], [`SET LOCAL cribra.allow_locked_changes = 'on'`], [`UPDATE cells SET source = 'show 0' WHERE id = $1`, [nb.cells[0].id]]]),
+      await sqlStateAsApp([[`BEGIN`], [`SET LOCAL cribra.allow_locked_changes = 'on'`], [`UPDATE cells SET source = 'show 0' WHERE id = $1`, [nb.cells[0].id]]]),
     ).toBe('CRLCK');
     const [{ source }] = await db.query(`SELECT source FROM cells WHERE id = $1`, [nb.cells[0].id]);
     expect(source).toBe(nb.cells[0].source);

@@ -4,7 +4,6 @@
 // withdrawal keeps it readable under a banner; audit events for both.
 import { createHash } from 'node:crypto';
 import type { INestApplication } from '@nestjs/common';
-import { Client as PgClient } from 'pg';
 import request from 'supertest';
 import type { LockRecord, PublishedRecordView } from '@cribra/contracts';
 import { parseNotebookFile } from '@cribra/lang';
@@ -13,6 +12,7 @@ import { compileLatex, flat } from './helpers/latex';
 import { deleteNotebooks, expectStatus, memberWithRole, runAll, verifyAndSignOff } from './helpers/review-fixtures';
 import { Client, createTestApp, newMember } from './helpers/test-app';
 import { CSRF_HEADER } from '@cribra/contracts';
+import { sqlFails } from './helpers/sql-as';
 
 let app: INestApplication;
 const created: string[] = [];
@@ -25,20 +25,6 @@ const CELLS: Array<{ kind: string; source: string }> = [
   { kind: 'query', source: 'let H = upload("pattern")\nshow admissible(H) as "admissible"' },
 ];
 const UPLOAD = Buffer.from('# the prime triplet pattern\n0\n2\n6\n');
-
-/** Runs SQL on a plain connection and returns the SQLSTATE it failed with. */
-async function sqlFails(sql: string, params: unknown[]): Promise<string> {
-  const pg = new PgClient({ connectionString: process.env.DATABASE_URL });
-  await pg.connect();
-  try {
-    await pg.query(sql, params);
-  } catch (e) {
-    return (e as { code?: string }).code ?? 'no code';
-  } finally {
-    await pg.end();
-  }
-  throw new Error(`expected the database to refuse: ${sql}`);
-}
 
 async function lockedNotebook(owner: Client, title: string): Promise<{ id: string; record: LockRecord; editor: Client; reviewer: Client }> {
   const res = await owner.call('post', '/api/notebooks', { title, summary: 'Gap counts by wheel level, checked exactly.' });

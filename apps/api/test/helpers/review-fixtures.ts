@@ -2,7 +2,7 @@
 // cells, waiting for runs and re-verifies (executed by the runner the launcher starts), e-mailed
 // links, and teardown of locked notebooks.
 import type { INestApplication } from '@nestjs/common';
-import { Client as PgClient } from 'pg';
+import { asOwner } from './sql-as';
 import type { NotebookView, RunView, VerificationView } from '@cribra/contracts';
 import { Client, newMember } from './test-app';
 import { waitForMail } from './mailbox';
@@ -98,14 +98,5 @@ export async function linkInMail(address: string, prefix: string, count = 1): Pr
  */
 export async function deleteNotebooks(_app: INestApplication, ids: string[]): Promise<void> {
   if (!ids.length) return;
-  const pg = new PgClient({ connectionString: process.env.DATABASE_OWNER_URL ?? process.env.DATABASE_URL });
-  await pg.connect();
-  try {
-    await pg.query('BEGIN');
-    await pg.query(`SET LOCAL cribra.allow_locked_changes = 'on'`);
-    await pg.query(`DELETE FROM notebooks WHERE id = ANY($1::uuid[])`, [ids]);
-    await pg.query('COMMIT');
-  } finally {
-    await pg.end();
-  }
+  await asOwner(`DELETE FROM notebooks WHERE id = ANY($1::uuid[])`, [ids]);
 }
