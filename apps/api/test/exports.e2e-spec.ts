@@ -72,7 +72,7 @@ describe('exports', () => {
     expect(md).toContain('```sift\ntally(13, 1)\n```');
     expect(md).toContain('modulus = 30030');
     expect(md).toContain('| gap | count |\n| --- | --- |\n| 2 | 1485 |\n| 22 | two, "rare" |');
-    expect(md).toContain('over p ∈ primes 5..23, 6 case(s) checked');
+    expect(md).toContain('holds for every p ∈ primes 5..23 (6 cases, every case checked');
     expect(md).toContain('not a proof');
     expect(md).toContain(`output digest ${'ab'.repeat(32)}`);
     expect(md).toContain('Not run yet.');
@@ -93,7 +93,7 @@ describe('exports', () => {
     expect(tex).toContain('We compare gap counts; see $g = 2$.');
     const pdf = compileLatex(tex);
     expect(pdf.errors).toEqual([]);
-    expect(flat(pdf.text)).toContain('over p ∈ primes 5..23, 6 case(s) checked');
+    expect(flat(pdf.text)).toContain('holds for every p ∈ primes 5..23 (6 cases, every case checked');
     expect(tex.trimEnd().endsWith('\\end{document}')).toBe(true);
     const actions = (await owner.client.call('get', `/api/notebooks/${notebookId}/audit`)).body.map((e: { action: string }) => e.action);
     expect(actions).toEqual(expect.arrayContaining(['export.markdown', 'export.latex']));

@@ -43,7 +43,7 @@ describe('LaTeX export compiled with pdflatex', () => {
     expect(tex).toContain('\\text{for } 5 \\le p \\le 23,\\ p \\text{ prime}');
     // Numbers right-aligned; the level table spans its header on every page (longtable).
     expect(tex).toMatch(/\\begin\{longtable\}\{@\{\}rrrrr@\{\}\}/);
-    // Once per claim (two claims): Sift's own summary says it too and is not repeated beside it.
+    // Once per claim (two claims), after the verdict sentence.
     expect(tex.match(/computed evidence/gi)).toHaveLength(2);
     // The chart of gaps 2, 4, 6 by level as a pgfplots figure with a log y axis and its three series.
     expect(tex).toMatch(/\\begin\{axis\}\[[^\]]*ymode=log/);
@@ -56,9 +56,9 @@ describe('LaTeX export compiled with pdflatex', () => {
     // 7952175 gaps 4 (∏(q − 2) over 3 ≤ q ≤ 23, OEIS A059861 — from memory), 10169950 gaps 6 (the claim's formula).
     expect(flat(pdf.layout)).toContain('23 36495360 7952175 7952175 10169950');
     // The checked range of the claims, as Sift reports it.
-    expect(text).toContain('over p ∈ primes 3..23, 8 case(s) checked');
-    expect(text).toContain('over p ∈ primes 5..23, 7 case(s) checked');
-    expect(text.match(/Computed evidence over the checked range, not a proof/g)).toHaveLength(2);
+    expect(text).toContain('Claim balance holds for every p ∈ primes 3..23 (8 cases, every case checked).');
+    expect(text).toContain('Claim sixes holds for every p ∈ primes 5..23 (7 cases, every case checked).');
+    expect(text.match(/Beyond that range this is computed evidence, not a proof/g)).toHaveLength(2);
   });
 
   it('compiles the all-symbols notebook: listings map the symbols, notes keep their maths, charts become pgfplots figures', () => {
@@ -76,7 +76,7 @@ describe('LaTeX export compiled with pdflatex', () => {
     const text = flat(pdf.text);
     expect(text).toContain('Powers of k');
     expect(text).toContain('[U+2603]'); // a character pdflatex cannot set is written as its code point
-    expect(text).toContain('over p ∈ primes 3..29, 9 case(s) checked');
+    expect(text).toContain('holds for every p ∈ primes 3..29 (9 cases, every case checked');
     // Every cell of the fixture ran (a cell that fails to parse would hide its symbols from the test).
     expect(text).not.toMatch(/failed at|error \(/);
     // The table of k, k², k − 1 read back row by row (numbers right-aligned).

@@ -138,13 +138,13 @@ describe('published records', () => {
     const md = await anon.call('get', `/api/records/${rid}/export?format=markdown`);
     expect(md.headers['content-disposition']).toBe(`attachment; filename="record-${rid}.md"`);
     expect(md.text).toContain(`Record SHA-256: ${sha}`);
-    expect(md.text).toContain('Claim balance holds, over p ∈ primes 3..13, 5 case(s) checked.');
+    expect(md.text).toContain('Claim balance holds for every p ∈ primes 3..13 (5 cases, every case checked).');
     const tex = await anon.call('get', `/api/records/${rid}/export?format=latex`);
     expectStatus(tex, 200);
     expect(tex.text).toContain('\\begin{axis}');
     const pdf = compileLatex(tex.text);
     expect(pdf.errors).toEqual([]);
-    expect(flat(pdf.text)).toContain('over p ∈ primes 3..13, 5 case(s) checked');
+    expect(flat(pdf.text)).toContain('holds for every p ∈ primes 3..13 (5 cases, every case checked)');
     expect(flat(pdf.text)).toContain(sha);
     const sift = await anon.call('get', `/api/records/${rid}/export?format=sift`);
     const parsed = parseNotebookFile(sift.text);

@@ -1,4 +1,5 @@
 import type { CellView, NotebookView, RunOutput, RunView } from '@cribra/contracts';
+import { verdictSentence, type VerdictContext, type VerdictOutput } from '@cribra/lang';
 import { asTable, cellText } from './table-export';
 
 /**
@@ -27,28 +28,29 @@ export interface DocumentWriter {
   finish?(text: string): string;
 }
 
-/** The evidence sentence, said once per claim (Sift's own summary says it too, so that is not repeated). */
-export const EVIDENCE_WORDING = 'Computed evidence over the checked range, not a proof.';
+/**
+ * Said once per claim that holds over a range: the range itself was checked in every case (so the
+ * finite statement is shown), anything beyond it is not.
+ */
+export const EVIDENCE_WORDING = 'Beyond that range this is computed evidence, not a proof.';
 
-export function describeVerdict(o: RunOutput): string {
-  const v = o as { holds?: unknown; over?: unknown; checked?: unknown; skipped?: unknown; summary?: unknown; statement?: unknown; label?: unknown };
-  const verdict = v.holds === true ? 'holds' : v.holds === false ? 'fails' : 'has no verdict';
-  const name = typeof v.label === 'string' && v.label ? `${v.label} ` : '';
-  const parts = [`Claim ${name}${verdict}`];
-  if (typeof v.over === 'string') parts.push(`over ${v.over}`);
-  if (typeof v.checked === 'number') parts.push(`${v.checked} case(s) checked`);
-  if (typeof v.skipped === 'number' && v.skipped > 0) parts.push(`${v.skipped} left out by its conditions`);
-  const text = `${parts.join(', ')}.`;
-  if (v.holds === true) return `${text} ${EVIDENCE_WORDING}`;
-  // A failing claim: Sift's summary names the counterexample.
-  return typeof v.summary === 'string' ? `${text} ${v.summary.charAt(0).toUpperCase()}${v.summary.slice(1)}.` : text;
+/** A claim's verdict in one paragraph, in the words of Sift's verdict sentence (its range, its cases). */
+export function describeVerdict(o: RunOutput, context: VerdictContext = {}): string {
+  const v = o as unknown as VerdictOutput;
+  const name = v.label ? `${v.label} ` : '';
+  if (v.holds === true) return `Claim ${name}${verdictSentence(v, context)}.${v.over ? ` ${EVIDENCE_WORDING}` : ''}`;
+  const where = v.over ? ` over ${v.over}` : '';
+  const cases = typeof v.checked === 'number' ? ` after ${v.checked} ${v.checked === 1 ? 'case' : 'cases'}` : '';
+  // Sift's summary names the counterexample with both sides.
+  const summary = typeof v.summary === 'string' ? ` ${v.summary.charAt(0).toUpperCase()}${v.summary.slice(1)}.` : '';
+  return `Claim ${name}fails${where}${cases}.${summary}`;
 }
 
-function renderOutput(w: DocumentWriter, o: RunOutput): string {
+function renderOutput(w: DocumentWriter, o: RunOutput, context: VerdictContext): string {
   const label = typeof o.label === 'string' && o.label ? `${o.label} = ` : '';
   const table = asTable(o);
   if (table) return (label ? w.paragraph(String(o.label)) + '\n\n' : '') + w.table(table.columns, table.rows.map((r) => r.map(cellText)));
-  if (o.kind === 'verdict') return w.paragraph(describeVerdict(o));
+  if (o.kind === 'verdict') return w.paragraph(describeVerdict(o, context));
   if (o.kind === 'text' && typeof o.text === 'string') return w.paragraph(o.text);
   if (o.kind === 'value' && typeof o.text === 'string') return w.value(`${label}${o.text}`);
   if (o.kind === 'chart') return w.chart(o);
@@ -77,6 +79,8 @@ export interface RenderOptions {
 
 export function renderNotebook(nb: NotebookView, w: DocumentWriter, opts: RenderOptions = {}): string {
   const out: string[] = [w.begin(nb, opts.stamp)];
+  // A note that states more than a claim's range is answered in that claim's verdict.
+  const notes = nb.cells.filter((c) => c.kind === 'note').map((c) => c.source);
   nb.cells.forEach((cell, i) => {
     const title = opts.titles?.[cell.id] ?? (cell as { title?: string | null }).title ?? null;
     out.push(w.heading(`Cell ${i + 1} · ${cell.kind}${title ? ` · ${title}` : ''}`, 2));
@@ -92,7 +96,7 @@ export function renderNotebook(nb: NotebookView, w: DocumentWriter, opts: Render
       return;
     }
     out.push(w.meta(runMeta(run, cell)));
-    for (const o of run.outputs ?? []) out.push(renderOutput(w, o));
+    for (const o of run.outputs ?? []) out.push(renderOutput(w, o, { title, notes }));
   });
   out.push(...(opts.appendix ?? []));
   out.push(w.end());
