@@ -1,6 +1,6 @@
 // The lock record: what a locked notebook froze, self-contained (readable and re-checkable without
 // the app). Schema: docs/records.md and docs/lock-record.schema.json. Types and constants only.
-import type { CellKind, RunOutput, UploadContent, UploadKind, UserRef } from './notebooks';
+import type { CellKind, RunOutput, UploadContent, UploadView, UserRef } from './notebooks';
 import type { VerificationCellStatus } from './review';
 
 /** Version tag of records written by this code. Records locked before it read as 'cribra-record-v0'. */
@@ -102,17 +102,9 @@ export interface LockedCell {
   uploadsRead: string[];
 }
 
-/** An upload some cell reads. */
-export interface RecordUpload {
-  name: string;
-  originalName: string;
-  kind: UploadKind;
-  mediaType: string;
-  sizeBytes: number;
-  /** sha-256 (hex) of the file as uploaded. */
-  sha256: string;
-  rowCount: number;
-  columns: string[] | null;
+/** An upload some cell reads: its upload fields (sha-256 of the file as uploaded) and what the cells read. */
+export interface RecordUpload
+  extends Pick<UploadView, 'name' | 'originalName' | 'kind' | 'mediaType' | 'sizeBytes' | 'sha256' | 'rowCount' | 'columns'> {
   /** The parsed content the cells read, when sizeBytes ≤ RECORD_UPLOAD_EMBED_MAX_BYTES; else null. */
   content: UploadContent | null;
 }

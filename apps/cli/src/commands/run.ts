@@ -1,11 +1,11 @@
 // `cribra run FILE`: runs a notebook file's query and claim cells headlessly in the Sift worker pool.
 import { readFileSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
 import {
   errorTitle, MemoryDataProvider, parseNotebookFile, type NotebookFileCell, type RunResult, type SiftOutput, type ValueJson,
   type VerdictContext, valueJsonText, verdictSentence,
 } from '@cribra/lang';
 import { SiftPool } from '@cribra/lang/node';
+import { parseCellRunArgs } from '../cell-run-args';
 
 const USAGE = 'usage: cribra run FILE [--json] [--workers N] [--timeout SECONDS] [--upload NAME=FILE]…';
 
@@ -102,28 +102,20 @@ export async function runCommand(argv: string[], out: (s: string) => void = (s) 
 }
 
 function parseArgs(argv: string[]): RunArgs {
-  const args: RunArgs = { file: '', json: false, workers: availableParallelism(), timeoutS: null, uploads: [] };
-  for (let i = 0; i < argv.length; i++) {
-    const a = argv[i]!;
-    const value = () => {
-      const v = argv[++i];
-      if (v === undefined) throw new Error(`${a} needs a value`);
-      return v;
-    };
-    if (a === '--json') args.json = true;
-    else if (a === '--workers') args.workers = positive(value(), '--workers');
-    else if (a === '--timeout') args.timeoutS = positive(value(), '--timeout');
-    else if (a === '--upload') {
+  const uploads: Array<[string, string]> = [];
+  const { input, ...rest } = parseCellRunArgs(argv, {
+    missing: 'no notebook file given',
+    positive,
+    extra: (flag, value) => {
+      if (flag !== '--upload') return false;
       const v = value();
       const eq = v.indexOf('=');
       if (eq <= 0) throw new Error('--upload takes NAME=FILE');
-      args.uploads.push([v.slice(0, eq), v.slice(eq + 1)]);
-    } else if (a.startsWith('--')) throw new Error(`unknown option ${a}`);
-    else if (!args.file) args.file = a;
-    else throw new Error(`unexpected argument ${a}`);
-  }
-  if (!args.file) throw new Error('no notebook file given');
-  return args;
+      uploads.push([v.slice(0, eq), v.slice(eq + 1)]);
+      return true;
+    },
+  });
+  return { file: input, ...rest, uploads };
 }
 
 function positive(v: string, name: string): number {

@@ -2,9 +2,9 @@
 // claim cell re-run from its source with the local engine, uploads from their embedded content.
 import { createHash } from 'node:crypto';
 import { readFileSync } from 'node:fs';
-import { availableParallelism } from 'node:os';
 import { canonicalJson, MemoryDataProvider, outputsDigest, type RunResult, type SiftOutput } from '@cribra/lang';
 import { SiftPool } from '@cribra/lang/node';
+import { parseCellRunArgs } from '../cell-run-args';
 import type { LockRecord, LockedCell, RecordCheckCell, RecordUpload } from '@cribra/contracts';
 
 const USAGE = 'usage: cribra verify RECORD.json|URL [--json] [--workers N] [--timeout SECONDS]';
@@ -189,23 +189,8 @@ function uploadData(record: LockRecord): MemoryDataProvider {
 }
 
 function parseArgs(argv: string[]): VerifyArgs {
-  const args: VerifyArgs = { source: '', json: false, workers: availableParallelism(), timeoutS: null };
-  for (let i = 0; i < argv.length; i++) {
-    const a = argv[i]!;
-    const value = () => {
-      const v = argv[++i];
-      if (v === undefined) throw new Error(`${a} needs a value`);
-      return v;
-    };
-    if (a === '--json') args.json = true;
-    else if (a === '--workers') args.workers = positive(value(), '--workers');
-    else if (a === '--timeout') args.timeoutS = positive(value(), '--timeout');
-    else if (a.startsWith('--')) throw new Error(`unknown option ${a}`);
-    else if (!args.source) args.source = a;
-    else throw new Error(`unexpected argument ${a}`);
-  }
-  if (!args.source) throw new Error('no record given');
-  return args;
+  const { input, ...rest } = parseCellRunArgs(argv, { missing: 'no record given', positive });
+  return { source: input, ...rest };
 }
 
 function positive(v: string, name: string): number {
