@@ -5,8 +5,12 @@ import { OutputView } from '../../../components/outputs/output-view';
 import { monoFont } from '../../../lib/design-tokens';
 import { RecordFields } from './record-fields';
 
-// Fields of a record cell this card shows in its own way; any other field the record holds is listed below it.
-const SHOWN = new Set(['id', 'position', 'kind', 'title', 'source', 'outputDigest', 'outputs', 'sourceSha256', 'runId', 'engineVersion', 'languageVersion']);
+// Fields of a record cell this card shows in its own way (a claim's entry through its verdict output,
+// the outputs' size and completeness through the outputs); any other field is listed below it.
+const SHOWN = new Set([
+  'id', 'position', 'kind', 'title', 'source', 'outputDigest', 'outputs', 'sourceSha256', 'runId', 'engineVersion', 'languageVersion',
+  'cellRevision', 'uploadsRead', 'claims', 'outputsBytes', 'outputsComplete',
+]);
 
 /** One cell of a published record: kind and title, source, the recorded outputs and digests. */
 export function RecordCell({ cell, locked }: { cell: PublishedCell; locked?: LockedCell }) {
@@ -33,6 +37,8 @@ export function RecordCell({ cell, locked }: { cell: PublishedCell; locked?: Loc
         <Typography sx={{ fontFamily: monoFont, fontSize: 11, color: 'text.secondary', wordBreak: 'break-all' }}>
           output digest {cell.outputDigest ?? '—'}
           {locked?.engineVersion ? ` · engine ${locked.engineVersion}, Sift ${locked.languageVersion ?? '?'}` : ''}
+          {locked?.cellRevision != null ? ` · cell revision ${locked.cellRevision}` : ''}
+          {locked?.uploadsRead?.length ? ` · reads ${locked.uploadsRead.join(', ')}` : ''}
         </Typography>
       )}
       {Object.keys(extra).length > 0 && <RecordFields fields={extra} />}

@@ -62,6 +62,18 @@ describe('RecordPage', () => {
     expect(screen.getByRole('heading', { name: 'Gap patterns', level: 1 })).toBeTruthy();
   });
 
+  it('shows a v1 cell\'s revision and uploads on its own line, not as raw record fields', async () => {
+    const r = record(false);
+    const v1 = { ...r.record, summary: r.summary, authors: r.authors, uploads: r.uploads, recordSha256: r.recordSha256 } as Record<string, unknown>;
+    delete v1.recordFormat;
+    v1.cells = [{ ...r.record.cells[0], cellRevision: 2, uploadsRead: ['decuplet'], claims: [{ verdict: 'holds' }], outputsBytes: 0, outputsComplete: true }];
+    mockFetch({ [`GET /api/records/${ID}`]: { body: { ...r, record: v1 } } });
+    renderRoutes(routes, `/records/${ID}`);
+    const cell = await screen.findByRole('article', { name: 'Cell 1' });
+    expect(cell.textContent).toContain('cell revision 2 · reads decuplet');
+    expect(screen.queryByRole('region', { name: 'More of the record' })).toBeNull();
+  });
+
   it('says there is no published record for an unknown id', async () => {
     mockFetch({});
     renderRoutes(routes, `/records/${ID}`);

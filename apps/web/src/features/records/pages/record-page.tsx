@@ -13,7 +13,11 @@ import { RecordCell } from '../components/record-cell';
 import { RecordFields } from '../components/record-fields';
 
 // Top-level fields of the lock record the page shows in its own sections; any other field is listed as it is.
-const SHOWN = new Set(['notebookId', 'title', 'notebookRevision', 'revisionDigest', 'digestVersion', 'lockedBy', 'lockedAt', 'signers', 'requiredSignoffs', 'engineVersion', 'languageVersion', 'runEngineVersions', 'runLanguageVersions', 'cells']);
+const SHOWN = new Set([
+  'notebookId', 'title', 'notebookRevision', 'revisionDigest', 'digestVersion', 'lockedBy', 'lockedAt', 'signers', 'requiredSignoffs', 'engineVersion', 'languageVersion', 'runEngineVersions', 'runLanguageVersions', 'cells',
+  // v1 fields the page shows through the published view (summary, authors, uploads, hash)
+  'summary', 'authors', 'uploads', 'recordSha256',
+]);
 
 const DOWNLOADS = [
   ['json', 'JSON record'],
